@@ -1,0 +1,11 @@
+//! salcdesk — a terminal workspace for molecular symmetry work.
+//!
+//! The library core knows no terminal: exact numbers ([`exact`]), point groups and their
+//! character tables ([`group`]), representations and reduction ([`rep`]), molecules and
+//! point-group detection ([`geom`]). The command line and the terminal workspace are thin
+//! faces over it.
+
+pub mod exact;
+pub mod geom;
+pub mod group;
+pub mod rep;
