@@ -6,6 +6,3 @@
 //! faces over it.
 
 pub mod exact;
-pub mod geom;
-pub mod group;
-pub mod rep;

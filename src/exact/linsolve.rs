@@ -1,0 +1,54 @@
+//! Exact linear algebra over Q for coordinate vectors: solve Σ aⱼ·basisⱼ = target.
+
+use num_rational::BigRational;
+use num_traits::Zero;
+
+/// Rational coefficients a with Σ aⱼ basisⱼ = target, or `None` if target is not in the span.
+/// Basis vectors must be linearly independent and all of the target's length.
+pub fn solve(basis: &[Vec<BigRational>], target: &[BigRational]) -> Option<Vec<BigRational>> {
+    let rows = target.len();
+    let cols = basis.len();
+    // Augmented matrix rows × (cols + 1).
+    let mut m: Vec<Vec<BigRational>> = (0..rows)
+        .map(|r| {
+            let mut row: Vec<BigRational> = basis.iter().map(|b| b[r].clone()).collect();
+            row.push(target[r].clone());
+            row
+        })
+        .collect();
+    let mut pivot_cols = Vec::new();
+    let mut r = 0;
+    for c in 0..cols {
+        let Some(p) = (r..rows).find(|&i| !m[i][c].is_zero()) else {
+            continue;
+        };
+        m.swap(r, p);
+        let inv = m[r][c].recip();
+        for x in m[r].iter_mut() {
+            *x *= &inv;
+        }
+        for i in 0..rows {
+            if i != r && !m[i][c].is_zero() {
+                let f = m[i][c].clone();
+                for j in c..=cols {
+                    let v = &m[r][j] * &f;
+                    m[i][j] -= v;
+                }
+            }
+        }
+        pivot_cols.push(c);
+        r += 1;
+        if r == rows {
+            break;
+        }
+    }
+    // Inconsistent if a zero row has a nonzero right-hand side.
+    if m[r..].iter().any(|row| !row[cols].is_zero()) {
+        return None;
+    }
+    let mut sol = vec![BigRational::zero(); cols];
+    for (i, &c) in pivot_cols.iter().enumerate() {
+        sol[c] = m[i][cols].clone();
+    }
+    Some(sol)
+}

@@ -1,0 +1,139 @@
+//! Cyclotomic polynomials Φₙ and reduction of polynomials in ζₙ modulo Φₙ.
+//!
+//! Φₙ is computed from xⁿ − 1 = Π_{d | n} Φ_d by exact integer division and cached.
+//! Source: Lang, *Algebra*, VI §3 (standard facts about cyclotomic polynomials).
+
+use num_bigint::BigInt;
+use num_rational::BigRational;
+use num_traits::Zero;
+use std::collections::HashMap;
+use std::sync::{Arc, Mutex, OnceLock};
+
+/// Euler's totient φ(n) = degree of Φₙ.
+pub fn totient(n: u32) -> usize {
+    let mut result = n as u64;
+    let mut m = n as u64;
+    let mut p = 2u64;
+    while p * p <= m {
+        if m % p == 0 {
+            while m % p == 0 {
+                m /= p;
+            }
+            result -= result / p;
+        }
+        p += 1;
+    }
+    if m > 1 {
+        result -= result / m;
+    }
+    result as usize
+}
+
+pub fn gcd(a: u64, b: u64) -> u64 {
+    if b == 0 {
+        a
+    } else {
+        gcd(b, a % b)
+    }
+}
+
+pub fn lcm(a: u32, b: u32) -> u32 {
+    let g = gcd(a as u64, b as u64);
+    ((a as u64 / g) * b as u64) as u32
+}
+
+fn cache() -> &'static Mutex<HashMap<u32, Arc<Vec<i64>>>> {
+    static CACHE: OnceLock<Mutex<HashMap<u32, Arc<Vec<i64>>>>> = OnceLock::new();
+    CACHE.get_or_init(|| Mutex::new(HashMap::new()))
+}
+
+/// Coefficients of Φₙ, lowest degree first (monic, integer, length φ(n)+1).
+pub fn cyclotomic(n: u32) -> Arc<Vec<i64>> {
+    if let Some(p) = cache().lock().expect("cyclotomic cache").get(&n) {
+        return p.clone();
+    }
+    // Start from xⁿ − 1 and divide by Φ_d for every proper divisor d.
+    let mut num: Vec<i64> = vec![0; n as usize + 1];
+    num[0] = -1;
+    num[n as usize] = 1;
+    for d in 1..n {
+        if n % d == 0 {
+            let phi_d = cyclotomic(d);
+            num = divide_exact(&num, &phi_d);
+        }
+    }
+    let arc = Arc::new(num);
+    cache()
+        .lock()
+        .expect("cyclotomic cache")
+        .insert(n, arc.clone());
+    arc
+}
+
+/// Exact division of integer polynomials by a monic divisor (remainder must be zero).
+fn divide_exact(num: &[i64], den: &[i64]) -> Vec<i64> {
+    let mut rem = num.to_vec();
+    let dd = den.len() - 1;
+    let nd = rem.len() - 1;
+    let mut quot = vec![0i64; nd - dd + 1];
+    for k in (0..=nd - dd).rev() {
+        let c = rem[k + dd];
+        quot[k] = c;
+        if c != 0 {
+            for (j, dj) in den.iter().enumerate() {
+                rem[k + j] -= c * dj;
+            }
+        }
+    }
+    debug_assert!(rem.iter().all(|c| *c == 0));
+    quot
+}
+
+/// Reduce a dense polynomial in ζₙ (any length) modulo Φₙ; returns φ(n) coefficients.
+pub fn reduce(mut coeffs: Vec<BigRational>, n: u32) -> Vec<BigRational> {
+    let phi = cyclotomic(n);
+    let deg = phi.len() - 1;
+    // First fold exponents ≥ n using ζⁿ = 1.
+    if coeffs.len() > n as usize {
+        let extra: Vec<BigRational> = coeffs.drain(n as usize..).collect();
+        for (k, c) in extra.into_iter().enumerate() {
+            let idx = k % n as usize;
+            coeffs[idx] += c;
+        }
+    }
+    for top in (deg..coeffs.len()).rev() {
+        if coeffs[top].is_zero() {
+            continue;
+        }
+        let c = std::mem::replace(&mut coeffs[top], BigRational::zero());
+        let shift = top - deg;
+        for (j, pj) in phi.iter().enumerate().take(deg) {
+            if *pj != 0 {
+                coeffs[shift + j] -= &c * BigRational::from_integer(BigInt::from(*pj));
+            }
+        }
+    }
+    coeffs.truncate(deg);
+    while coeffs.len() < deg {
+        coeffs.push(BigRational::zero());
+    }
+    coeffs
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn known_cyclotomic_polynomials() {
+        // Source: standard table of cyclotomic polynomials (e.g. Lang, Algebra).
+        assert_eq!(*cyclotomic(1), vec![-1, 1]);
+        assert_eq!(*cyclotomic(3), vec![1, 1, 1]);
+        assert_eq!(*cyclotomic(4), vec![1, 0, 1]);
+        assert_eq!(*cyclotomic(8), vec![1, 0, 0, 0, 1]);
+        assert_eq!(*cyclotomic(12), vec![1, 0, -1, 0, 1]);
+        assert_eq!(*cyclotomic(5), vec![1, 1, 1, 1, 1]);
+        assert_eq!(totient(16), 8);
+        assert_eq!(totient(60), 16);
+    }
+}

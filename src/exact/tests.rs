@@ -1,0 +1,160 @@
+//! Unit tests of exact arithmetic, parsing and printing.
+use super::*;
+
+fn p(s: &str) -> Cyclo {
+    parse(s).unwrap_or_else(|e| panic!("{s}: {e}"))
+}
+
+#[test]
+fn golden_ratio_identities() {
+    // Source: textbook facts, 2cos(2π/5) = (√5 − 1)/2 and 2cos(4π/5) = −(1 + √5)/2.
+    assert_eq!(p("2cos(2pi/5)"), p("(sqrt(5)-1)/2"));
+    assert_eq!(p("2cos(4pi/5)"), p("-(1+sqrt(5))/2"));
+    // φ² = φ + 1
+    let phi = p("(1+sqrt(5))/2");
+    assert_eq!(&phi * &phi, &phi + &Cyclo::one());
+}
+
+#[test]
+fn cube_roots_of_unity() {
+    // ε = exp(2πi/3): 1 + ε + ε² = 0, ε* = ε².
+    let e = p("exp(2pi i/3)");
+    assert!((Cyclo::one() + &e + &e * &e).is_zero());
+    assert_eq!(e.conj(), &e * &e);
+    assert_eq!(e.re(), Cyclo::frac(-1, 2));
+    assert_eq!(&e.im() * &e.im(), Cyclo::frac(3, 4));
+}
+
+#[test]
+fn square_roots_are_exact() {
+    for q in [2i64, 3, 5, 6, 7, 8, 10, 12, 15, 18, 21, 50] {
+        let r = sqrt_rational(&num_rational::BigRational::from_integer(q.into())).unwrap();
+        assert_eq!(&r * &r, Cyclo::from_int(q), "√{q}");
+        assert!(r.re_f64() > 0.0);
+        assert!((r.re_f64() - (q as f64).sqrt()).abs() < 1e-12);
+    }
+    // sin(2π/5) = √(10+2√5)/4 — a nested root that is still cyclotomic. Source: textbook fact.
+    let s = p("sin(2pi/5)");
+    assert_eq!(p("sqrt(10+2sqrt(5))/4"), s);
+}
+
+#[test]
+fn cos_of_seventh_and_sixteenth_turns() {
+    // Σ_{k=1}^{3} 2cos(2πk/7) = −1 (sum of the nontrivial 7th roots of unity).
+    let s = p("2cos(2pi/7)") + p("2cos(4pi/7)") + p("2cos(6pi/7)");
+    assert_eq!(s, Cyclo::from_int(-1));
+    // 2cos(π/8) = √(2+√2)
+    assert_eq!(p("2cos(pi/8)"), p("sqrt(2+sqrt(2))"));
+    assert!((p("cos(2pi/8)").re_f64() - 0.5f64.sqrt()).abs() < 1e-12);
+}
+
+#[test]
+fn inverse_and_division() {
+    let x = p("1+2cos(2pi/7)");
+    let y = x.inv().unwrap();
+    assert!((x * y).is_one());
+    assert!(Cyclo::zero().inv().is_none());
+    assert_eq!(p("1/sqrt(2)"), p("sqrt(2)/2"));
+}
+
+#[test]
+fn integer_tests() {
+    assert!(p("4/2").is_integer());
+    assert!(!p("1/2").is_integer());
+    assert!(p("2cos(2pi/3)*2").is_integer());
+    assert!(!p("sqrt(2)").is_integer());
+    assert_eq!(p("(sqrt(3))^2").to_i64(), Some(3));
+    assert_eq!(p("0.25"), Cyclo::frac(1, 4));
+}
+
+#[test]
+fn printing_is_readable() {
+    let cases = [
+        ("-1", "−1", "-1"),
+        ("1/2", "1/2", "1/2"),
+        ("(1+sqrt(5))/2", "(1+√5)/2", "(1+sqrt(5))/2"),
+        ("2cos(4pi/5)", "(−1−√5)/2", "(-1-sqrt(5))/2"),
+        ("sqrt(2)", "√2", "sqrt(2)"),
+        ("-sqrt(3)/2", "−√3/2", "-sqrt(3)/2"),
+        ("exp(2pi i/3)", "exp(2πi/3)", "exp(2pi i/3)"),
+        ("exp(-2pi i/3)", "exp(−2πi/3)", "exp(-2pi i/3)"),
+        ("-exp(2pi i/3)", "−exp(2πi/3)", "-exp(2pi i/3)"),
+        ("i", "i", "i"),
+        ("-i", "−i", "-i"),
+        ("2cos(2pi/7)", "2cos(2π/7)", "2cos(2pi/7)"),
+        ("sqrt(2+sqrt(2))", "2cos(π/8)", "2cos(pi/8)"),
+    ];
+    for (src, uni, ascii) in cases {
+        let x = p(src);
+        assert_eq!(x.text(Notation::Unicode), uni, "unicode of {src}");
+        assert_eq!(x.text(Notation::Ascii), ascii, "ascii of {src}");
+    }
+}
+
+#[test]
+fn print_parse_round_trip() {
+    let srcs = [
+        "0",
+        "7",
+        "-3/4",
+        "sqrt(6)",
+        "(1-sqrt(5))/4",
+        "exp(2pi i/5)",
+        "exp(4pi i/5)",
+        "exp(2pi i/7)",
+        "2cos(2pi/7)-1",
+        "sqrt(2)+sqrt(3)",
+        "1+i",
+        "sqrt(3)/2*i + 1/2",
+        "2cos(pi/8)+1",
+        "exp(2pi i/8)",
+        "-exp(2pi i/5)",
+        "3*2cos(6pi/7)",
+        "sqrt(5)*i",
+        "sin(pi/12)",
+        "cos(2pi/16)",
+        "exp(pi i/6)",
+    ];
+    for s in srcs {
+        let x = p(s);
+        for nt in [Notation::Unicode, Notation::Ascii] {
+            let t = x.text(nt);
+            let back = parse(&t).unwrap_or_else(|e| panic!("{s} printed as {t}: {e}"));
+            assert_eq!(back, x, "{s} printed as {t}");
+        }
+    }
+}
+
+#[test]
+fn parse_errors_have_columns() {
+    let e = parse("1 + ").unwrap_err();
+    assert_eq!(e.column, 5);
+    let e = parse("cos(2)").unwrap_err();
+    assert!(e.message.contains("multiple of pi"), "{e}");
+    assert!(parse("2 pi").is_err());
+    assert!(parse("phi").is_err());
+    assert!(parse("1/0").is_err());
+    assert!(parse("abc").is_err());
+    assert!(parse("").is_err());
+    assert!(parse("(1").is_err());
+    assert!(parse("2^99999999999999999999").is_err());
+}
+
+#[test]
+fn phi_in_linear_groups() {
+    let q = num_rational::BigRational::new(1.into(), 2.into());
+    assert_eq!(
+        parse_with_phi("2cos(phi)", Some(&q)).unwrap(),
+        Cyclo::from_int(-2)
+    );
+    assert_eq!(
+        parse_with_phi("2cos(2phi)", Some(&q)).unwrap(),
+        Cyclo::from_int(2)
+    );
+}
+
+#[test]
+fn decimals() {
+    assert_eq!(p("(sqrt(5)-1)/2").decimal(), "0.618034");
+    assert_eq!(p("exp(2pi i/3)").decimal(), "-0.5+0.866025i");
+}
