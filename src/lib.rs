@@ -6,3 +6,5 @@
 //! faces over it.
 
 pub mod exact;
+pub mod group;
+pub mod rep;

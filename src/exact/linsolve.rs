@@ -52,3 +52,54 @@ pub fn solve(basis: &[Vec<BigRational>], target: &[BigRational]) -> Option<Vec<B
     }
     Some(sol)
 }
+
+/// Coefficients a (field elements) with Σ aⱼ basisⱼ = target, or `None` if not in the span.
+pub fn solve_field(
+    basis: &[Vec<super::Cyclo>],
+    target: &[super::Cyclo],
+) -> Option<Vec<super::Cyclo>> {
+    use super::Cyclo;
+    let rows = target.len();
+    let cols = basis.len();
+    let mut m: Vec<Vec<Cyclo>> = (0..rows)
+        .map(|r| {
+            let mut row: Vec<Cyclo> = basis.iter().map(|b| b[r].clone()).collect();
+            row.push(target[r].clone());
+            row
+        })
+        .collect();
+    let mut pivot_cols = Vec::new();
+    let mut r = 0;
+    for c in 0..cols {
+        let Some(p) = (r..rows).find(|&i| !m[i][c].is_zero()) else {
+            continue;
+        };
+        m.swap(r, p);
+        let inv = m[r][c].inv()?;
+        for x in m[r].iter_mut() {
+            *x = &*x * &inv;
+        }
+        for i in 0..rows {
+            if i != r && !m[i][c].is_zero() {
+                let f = m[i][c].clone();
+                for j in c..=cols {
+                    let v = &m[r][j] * &f;
+                    m[i][j] -= &v;
+                }
+            }
+        }
+        pivot_cols.push(c);
+        r += 1;
+        if r == rows {
+            break;
+        }
+    }
+    if m[r..].iter().any(|row| !row[cols].is_zero()) {
+        return None;
+    }
+    let mut sol = vec![Cyclo::zero(); cols];
+    for (i, &c) in pivot_cols.iter().enumerate() {
+        sol[c] = m[i][cols].clone();
+    }
+    Some(sol)
+}

@@ -16,7 +16,7 @@ mod print;
 mod sqrt;
 
 pub use cyclo::{rational_to_f64, Cyclo};
-pub use linsolve::solve as solve_rational;
+pub use linsolve::{solve as solve_rational, solve_field};
 pub use parse::{parse, parse_with_phi, ParseError};
 pub use print::{decimal, format_rational};
 pub use sqrt::{rationalize, sqrt, sqrt_rational, SqrtError};

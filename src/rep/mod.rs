@@ -1,1 +1,20 @@
-//! rep
+//! Representations: characters of reducible representations, the exact reduction formula with
+//! its worked arithmetic, diagnosis of impossible characters, direct products and symmetric
+//! powers, and the linear groups' route through a finite subgroup.
+//!
+//! Knows groups (from `group`) but not molecules: bases that produce characters live in `basis`.
+
+mod character;
+mod linear;
+mod product;
+mod reduce;
+
+pub use character::{Character, CharacterError, MemberKind};
+pub use linear::{reduce_linear_unmoved, reduce_via_subgroup, restrictions, LinearReduction};
+pub use product::{
+    antisymmetric_square, class_power, direct_product, direct_sum, from_multiplicities,
+    irrep_character, symmetric_cube, symmetric_square,
+};
+pub use reduce::{
+    decompose, format_sum, pair_label, reduce, suggest, Invalid, Line, Reduction, Suggestion, Term,
+};

@@ -1,0 +1,220 @@
+//! The reduction formula, exactly, with its worked arithmetic:
+//! nᵢ = (1/h) Σ_c g_c χ(c) χᵢ(c)*   (Cotton, 3rd ed., §4.3, eq. 4.3-11).
+//!
+//! Impossible characters (a fractional or negative nᵢ) give an error naming the offending
+//! irreps, plus the single-class changes of χ that would give a valid decomposition.
+
+use super::character::Character;
+use crate::exact::Cyclo;
+use crate::group::PointGroup;
+use num_traits::Signed;
+
+/// One term g_c·χ(c)·χᵢ(c)* of the sum.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct Term {
+    pub class: usize,
+    pub size: usize,
+    pub chi: Cyclo,
+    pub chi_irrep_conj: Cyclo,
+    pub product: Cyclo,
+}
+
+/// The worked reduction for one irrep.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct Line {
+    pub irrep: usize,
+    pub terms: Vec<Term>,
+    pub sum: Cyclo,
+    /// sum / h.
+    pub value: Cyclo,
+}
+
+/// Result of reducing χ.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct Reduction {
+    pub group: String,
+    pub order: usize,
+    pub chi: Character,
+    pub lines: Vec<Line>,
+}
+
+/// A single-class change that makes χ valid.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct Suggestion {
+    pub class: usize,
+    pub from: Cyclo,
+    pub to: Cyclo,
+    pub multiplicities: Vec<u64>,
+}
+
+/// Why a character is not a representation.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct Invalid {
+    /// (irrep index, its non-integer or negative value)
+    pub offending: Vec<(usize, Cyclo)>,
+    pub suggestions: Vec<Suggestion>,
+}
+
+impl Reduction {
+    /// Multiplicities if all are non-negative integers.
+    pub fn multiplicities(&self) -> Result<Vec<u64>, Invalid> {
+        let bad: Vec<(usize, Cyclo)> = self
+            .lines
+            .iter()
+            .filter(|l| !is_count(&l.value))
+            .map(|l| (l.irrep, l.value.clone()))
+            .collect();
+        if bad.is_empty() {
+            Ok(self
+                .lines
+                .iter()
+                .map(|l| l.value.to_i64().unwrap_or(0) as u64)
+                .collect())
+        } else {
+            Err(Invalid {
+                offending: bad,
+                suggestions: Vec::new(),
+            })
+        }
+    }
+    pub fn is_valid(&self) -> bool {
+        self.multiplicities().is_ok()
+    }
+}
+
+fn is_count(v: &Cyclo) -> bool {
+    v.to_integer().map(|i| !i.is_negative()).unwrap_or(false)
+}
+
+/// Reduce χ in the group g, with the worked sum for every irrep.
+pub fn reduce(g: &PointGroup, chi: &Character) -> Reduction {
+    let h = g.order();
+    let sizes = g.class_sizes();
+    let lines = g
+        .table
+        .irreps
+        .iter()
+        .enumerate()
+        .map(|(i, ir)| {
+            let terms: Vec<Term> = (0..sizes.len())
+                .map(|c| {
+                    let conj = ir.chars[c].conj();
+                    let product = &(&chi.0[c] * &conj) * &Cyclo::from_int(sizes[c] as i64);
+                    Term {
+                        class: c,
+                        size: sizes[c],
+                        chi: chi.0[c].clone(),
+                        chi_irrep_conj: conj,
+                        product,
+                    }
+                })
+                .collect();
+            let sum: Cyclo = terms.iter().map(|t| t.product.clone()).sum();
+            let value = &sum * &Cyclo::frac(1, h as i64);
+            Line {
+                irrep: i,
+                terms,
+                sum,
+                value,
+            }
+        })
+        .collect();
+    Reduction {
+        group: g.name().to_string(),
+        order: h,
+        chi: chi.clone(),
+        lines,
+    }
+}
+
+/// Multiplicities, or the full diagnosis with suggestions.
+pub fn decompose(g: &PointGroup, chi: &Character) -> Result<Vec<u64>, Invalid> {
+    let red = reduce(g, chi);
+    red.multiplicities().map_err(|mut inv| {
+        inv.suggestions = suggest(g, chi);
+        inv
+    })
+}
+
+/// Single-class changes of χ that give a valid non-negative integer decomposition.
+pub fn suggest(g: &PointGroup, chi: &Character) -> Vec<Suggestion> {
+    let dim = chi.0[0].re_f64().abs().round() as i64;
+    let bound = dim.max(1) + 2;
+    let mut out = Vec::new();
+    for c in 0..chi.0.len() {
+        let mut candidates: Vec<Cyclo> = (-bound..=bound).map(Cyclo::from_int).collect();
+        // Values the irreps themselves take there (irrational classes).
+        for ir in &g.table.irreps {
+            let v = &ir.chars[c];
+            if !v.is_rational() && !candidates.contains(v) {
+                for k in -2..=2i64 {
+                    candidates.push(v + &Cyclo::from_int(k));
+                }
+            }
+        }
+        for v in candidates {
+            if v == chi.0[c] {
+                continue;
+            }
+            let mut trial = chi.clone();
+            trial.0[c] = v.clone();
+            if let Ok(m) = reduce(g, &trial).multiplicities() {
+                if m.iter().sum::<u64>() > 0 {
+                    out.push(Suggestion {
+                        class: c,
+                        from: chi.0[c].clone(),
+                        to: v,
+                        multiplicities: m,
+                    });
+                }
+            }
+        }
+    }
+    // Smallest changes first.
+    out.sort_by(|a, b| {
+        let da = (&a.to - &a.from).re_f64().abs();
+        let db = (&b.to - &b.from).re_f64().abs();
+        da.total_cmp(&db)
+    });
+    out.truncate(8);
+    out
+}
+
+/// `A1 + 2E` style text of multiplicities. A complex-conjugate pair with equal multiplicities
+/// (1E + 2E) is written as the single real label E, as tables bracket them.
+pub fn format_sum(g: &PointGroup, m: &[u64], unicode: bool) -> String {
+    let mut parts: Vec<String> = Vec::new();
+    for (i, n) in m.iter().enumerate() {
+        if *n == 0 {
+            continue;
+        }
+        let ir = &g.table.irreps[i];
+        let mut label = ir.label.clone();
+        if let Some(p) = ir.pair {
+            if m.get(p) == Some(n) {
+                if p < i {
+                    continue;
+                }
+                label = pair_label(&label);
+            }
+        }
+        let l = if unicode {
+            crate::group::display_label(&label)
+        } else {
+            label
+        };
+        parts.push(if *n == 1 { l } else { format!("{n}{l}") });
+    }
+    if parts.is_empty() {
+        "0".into()
+    } else {
+        parts.join(" + ")
+    }
+}
+
+/// `1E1` → `E1`: the real label of a complex-conjugate pair.
+pub fn pair_label(label: &str) -> String {
+    label
+        .trim_start_matches(|c: char| c.is_ascii_digit())
+        .to_string()
+}
