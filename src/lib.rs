@@ -8,3 +8,5 @@
 pub mod exact;
 pub mod group;
 pub mod rep;
+pub mod report;
+pub mod cli;

@@ -16,5 +16,5 @@ pub use product::{
     irrep_character, symmetric_cube, symmetric_square,
 };
 pub use reduce::{
-    decompose, format_sum, pair_label, reduce, suggest, Invalid, Line, Reduction, Suggestion, Term,
+    decompose, format_sum, pair_label, parse_gamma, reduce, suggest, Invalid, Line, Reduction, Suggestion, Term,
 };

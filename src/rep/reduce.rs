@@ -218,3 +218,54 @@ pub fn pair_label(label: &str) -> String {
         .trim_start_matches(|c: char| c.is_ascii_digit())
         .to_string()
 }
+
+/// Parse `A1 + 2E`, `T2`, `E'+A2''`, `Eu` (ASCII or Unicode labels; `E` also names a 1E+2E
+/// pair) into multiplicities in table order.
+pub fn parse_gamma(g: &PointGroup, text: &str) -> Result<Vec<u64>, String> {
+    let mut m = vec![0u64; g.table.irreps.len()];
+    let t = text.replace('−', "-");
+    for part in t.split('+').map(str::trim) {
+        if part.is_empty() {
+            return Err(format!("empty term in '{text}'"));
+        }
+        // Leading count; careful with labels that begin with a digit (1E, 2E).
+        let (count, label) = split_count(g, part)?;
+        if let Some(i) = g.table.irrep_index(label) {
+            m[i] += count;
+            continue;
+        }
+        // A real pair label such as E or E1 for 1E + 2E.
+        let pair = g.table.irreps.iter().enumerate().find(|(_, ir)| {
+            ir.pair.is_some() && pair_label(&ir.label).eq_ignore_ascii_case(label)
+        });
+        match pair {
+            Some((i, ir)) => {
+                m[i] += count;
+                m[ir.pair.expect("pair")] += count;
+            }
+            None => {
+                let labels: Vec<&str> = g.table.irreps.iter().map(|i| i.label.as_str()).collect();
+                return Err(format!(
+                    "'{label}' is not an irrep of {} ({})",
+                    g.name(),
+                    labels.join(", ")
+                ));
+            }
+        }
+    }
+    Ok(m)
+}
+
+fn split_count<'a>(g: &PointGroup, part: &'a str) -> Result<(u64, &'a str), String> {
+    if g.table.irrep_index(part).is_some() {
+        return Ok((1, part));
+    }
+    let digits: String = part.chars().take_while(|c| c.is_ascii_digit()).collect();
+    if digits.is_empty() {
+        return Ok((1, part));
+    }
+    let n: u64 = digits
+        .parse()
+        .map_err(|_| format!("bad count in '{part}'"))?;
+    Ok((n, part[digits.len()..].trim()))
+}
