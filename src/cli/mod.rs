@@ -76,7 +76,8 @@ pub fn run(cli: &Cli) -> CliResult {
 
 /// Parse `--format` values.
 pub fn parse_format(s: &str) -> Result<crate::report::Format, String> {
-    crate::report::Format::parse(s).ok_or_else(|| format!("unknown format '{s}' (text, md, latex, json)"))
+    crate::report::Format::parse(s)
+        .ok_or_else(|| format!("unknown format '{s}' (text, md, latex, json)"))
 }
 
 /// Print a CliError the friendly way and return its exit code.

@@ -235,9 +235,10 @@ pub fn parse_gamma(g: &PointGroup, text: &str) -> Result<Vec<u64>, String> {
             continue;
         }
         // A real pair label such as E or E1 for 1E + 2E.
-        let pair = g.table.irreps.iter().enumerate().find(|(_, ir)| {
-            ir.pair.is_some() && pair_label(&ir.label).eq_ignore_ascii_case(label)
-        });
+        let pair =
+            g.table.irreps.iter().enumerate().find(|(_, ir)| {
+                ir.pair.is_some() && pair_label(&ir.label).eq_ignore_ascii_case(label)
+            });
         match pair {
             Some((i, ir)) => {
                 m[i] += count;
