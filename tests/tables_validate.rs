@@ -57,10 +57,14 @@ fn every_table_renders_in_every_format() {
         for f in [Format::Text, Format::Markdown, Format::Latex, Format::Json] {
             for ascii in [false, true] {
                 let s = table::render(&g, f, ascii);
-                assert!(
-                    s.contains(&g.table.irreps[0].label)
-                        || s.contains(&g.table.irreps[0].display())
-                );
+                let ok = match f {
+                    Format::Latex => s.contains("\\begin{tabular}") && s.contains("\\bottomrule"),
+                    _ => {
+                        s.contains(&g.table.irreps[0].label)
+                            || s.contains(&g.table.irreps[0].display())
+                    }
+                };
+                assert!(ok, "{name} {f:?} ascii={ascii}\n{s}");
             }
         }
         let j = table::to_json(&g);
@@ -86,7 +90,14 @@ fn ascii_output_is_ascii() {
 fn a_corrupted_character_fails_validation() {
     // Mutation check: the validator must catch a single wrong entry.
     let text = include_str!("../tables/Td.toml");
-    let bad = text.replacen("\"-1\"", "\"1\"", 1);
+    // Change one character of T1 (the χ(C2) = −1 entry) to +1.
+    let line = text
+        .lines()
+        .skip_while(|l| !l.contains("label = \"T1\""))
+        .find(|l| l.trim_start().starts_with("chars"))
+        .unwrap();
+    let bad = text.replacen(line, &line.replacen("\"-1\"", "\"1\"", 1), 1);
+    assert_ne!(bad, text);
     let g = group::PointGroup::from_toml("Td-bad.toml", &bad).unwrap();
     assert!(!validate(&g).is_empty());
 }

@@ -56,9 +56,10 @@ fn square_planar_ab4() {
 #[test]
 fn octahedral_ab6() {
     // Source: Nakamoto, Part A, octahedral XY6 (SF6): A1g + Eg + 2T1u + T2g + T2u.
+    // Unmoved atoms: the 6C2 axes bisect edges and pass through S only.
     check(
         "Oh",
-        &[7, 1, 3, 3, 3, 1, 1, 1, 5, 3],
+        &[7, 1, 1, 3, 3, 1, 1, 1, 5, 3],
         "A1g + Eg + 2T1u + T2g + T2u",
         15,
     );

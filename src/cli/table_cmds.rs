@@ -71,10 +71,9 @@ pub struct ReduceArgs {
     /// Point group.
     pub group: String,
     /// Characters in the table's class order (exact notation: 2, -1, sqrt(2), 2cos(2pi/5) …).
-    #[arg(allow_hyphen_values = true)]
     pub characters: Vec<String>,
     /// Give unmoved counts per class instead of characters.
-    #[arg(long, num_args = 1.., allow_hyphen_values = true, conflicts_with = "characters")]
+    #[arg(long, num_args = 1.., conflicts_with = "characters")]
     pub unmoved: Option<Vec<i64>>,
     /// What each unmoved member is: stretch (also σ orbitals), cartesian, pi, axial.
     #[arg(long, default_value = "stretch")]

@@ -12,7 +12,8 @@ use serde_json::{json, Map, Value};
 
 fn num(v: &Cyclo, nt: Notation) -> String {
     let s = v.text(nt);
-    if s.contains(['+', ' ']) || s[1..].contains(['-', '−']) {
+    let tail: String = s.chars().skip(1).collect();
+    if s.contains(['+', ' ']) || tail.contains(['-', '−']) {
         format!("({s})")
     } else {
         s

@@ -106,7 +106,11 @@ fn text(g: &PointGroup, nt: Notation, ascii: bool) -> String {
         t.family.name(),
         order,
         grid::render(&rows, ascii),
-        wrap(&t.orientation)
+        wrap(&if ascii {
+            super::ascii_prose(&t.orientation)
+        } else {
+            t.orientation.clone()
+        })
     )
 }
 
@@ -143,7 +147,12 @@ fn markdown(g: &PointGroup, nt: Notation, ascii: bool) -> String {
         r.push(functions(t, i, ascii).join("; "));
         out.push_str(&format!("| {} |\n", r.join(" | ")));
     }
-    out.push_str(&format!("\n{}\n", t.orientation.trim()));
+    let orientation = if ascii {
+        super::ascii_prose(&t.orientation)
+    } else {
+        t.orientation.clone()
+    };
+    out.push_str(&format!("\n{}\n", orientation.trim()));
     out
 }
 
