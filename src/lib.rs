@@ -10,3 +10,5 @@ pub mod exact;
 pub mod group;
 pub mod rep;
 pub mod report;
+#[doc(hidden)]
+pub mod robustness;

@@ -297,3 +297,45 @@ pub fn parse_gamma(g: &PointGroup, text: &str) -> Result<Vec<u64>, String> {
     }
     Ok(m)
 }
+
+/// One term of a decomposition as a chemist reads it: label, multiplicity, dimension. A
+/// complex-conjugate pair with equal multiplicities becomes one real degenerate term (E, dim 2).
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct RealTerm {
+    pub label: String,
+    pub multiplicity: u64,
+    pub dimension: usize,
+    /// Irrep indices the term stands for (two for a pair).
+    pub irreps: Vec<usize>,
+}
+
+/// The non-zero terms of multiplicities `m`, pairs merged.
+pub fn real_terms(g: &PointGroup, m: &[u64]) -> Vec<RealTerm> {
+    let mut out = Vec::new();
+    for (i, &n) in m.iter().enumerate() {
+        if n == 0 {
+            continue;
+        }
+        let ir = &g.table.irreps[i];
+        match ir.pair {
+            Some(p) if m.get(p) == Some(&n) => {
+                if p < i {
+                    continue;
+                }
+                out.push(RealTerm {
+                    label: pair_label(&ir.label),
+                    multiplicity: n,
+                    dimension: 2 * ir.dim(),
+                    irreps: vec![i, p],
+                });
+            }
+            _ => out.push(RealTerm {
+                label: ir.label.clone(),
+                multiplicity: n,
+                dimension: ir.dim(),
+                irreps: vec![i],
+            }),
+        }
+    }
+    out
+}

@@ -46,10 +46,25 @@ fn subtract(a: &[u64], b: &[u64]) -> Result<Vec<u64>, String> {
 
 /// Γvib from unmoved-atom counts per class.
 pub fn vibrations_from_unmoved(g: &PointGroup, unmoved: &[i64]) -> Result<Vibrations, String> {
+    if g.is_linear() {
+        let lr = reduce_linear_unmoved(g, unmoved, MemberKind::Cartesian)?;
+        return vibrations_from_gamma_3n(g, lr.multiplicities);
+    }
+    let chi =
+        Character::from_unmoved(g, unmoved, MemberKind::Cartesian).map_err(|e| e.to_string())?;
+    let g3n = reduce(g, &chi).multiplicities().map_err(|_| {
+        "the unmoved counts do not give a representation (check them per class)".to_string()
+    })?;
+    vibrations_from_gamma_3n(g, g3n)
+}
+
+/// Γvib = Γ3N − Γtrans − Γrot, given Γ3N as multiplicities in g (a linear group's irreps for
+/// C∞v/D∞h).
+pub fn vibrations_from_gamma_3n(g: &PointGroup, g3n: Vec<u64>) -> Result<Vibrations, String> {
     // Translations: irreps (pairs counted on their first row) carrying x, y, z.
     let trans = column(g, |ir| ir.functions.linear.len());
     if g.is_linear() {
-        let lr = reduce_linear_unmoved(g, unmoved, MemberKind::Cartesian)?;
+        let lr_multiplicities = g3n;
         // Rotations of a linear molecule: only the tuple (Rx, Ry).
         let rot = column(g, |ir| {
             ir.functions
@@ -58,11 +73,11 @@ pub fn vibrations_from_unmoved(g: &PointGroup, unmoved: &[i64]) -> Result<Vibrat
                 .filter(|t| t.dim() == 2)
                 .count()
         });
-        let after_t = subtract(&lr.multiplicities, &trans)?;
+        let after_t = subtract(&lr_multiplicities, &trans)?;
         let vib = subtract(&after_t, &rot)?;
         let n_modes = dims(g, &vib);
         return Ok(Vibrations {
-            gamma_3n: lr.multiplicities,
+            gamma_3n: lr_multiplicities,
             translations: trans,
             rotations: rot,
             vibrations: vib,
