@@ -84,11 +84,6 @@ pub fn vibrations_from_gamma_3n(g: &PointGroup, g3n: Vec<u64>) -> Result<Vibrati
             n_modes,
         });
     }
-    let chi =
-        Character::from_unmoved(g, unmoved, MemberKind::Cartesian).map_err(|e| e.to_string())?;
-    let g3n = reduce(g, &chi).multiplicities().map_err(|_| {
-        "the unmoved counts do not give a representation (check them per class)".to_string()
-    })?;
     // A complex pair's functions are listed on its first row; both rows count.
     let with_pairs = |m: Vec<u64>| -> Vec<u64> {
         let mut out = m.clone();
