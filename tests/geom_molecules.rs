@@ -953,3 +953,80 @@ pub fn scramble(m: &Molecule, seed: u64, sigma: f64) -> Molecule {
     }
     out
 }
+
+/// Mackay icosahedron (group Ih) with `shells` shells around a central atom: shell k holds
+/// 10k² + 2 atoms (A. L. Mackay, Acta Cryst. 15, 916 (1962)); 7 shells give 1415 atoms.
+/// Nearest-neighbour distance along the radial direction `d` Å.
+pub fn mackay_icosahedron(shells: usize, d: f64) -> Molecule {
+    let unit: Vec<V> = icosahedron().into_iter().map(|p| p * (d / 2.0)).collect();
+    let edge = d;
+    // Faces: triples of mutually adjacent vertices.
+    let mut faces = Vec::new();
+    for i in 0..12 {
+        for j in i + 1..12 {
+            for k in j + 1..12 {
+                let adj = |a: usize, b: usize| ((unit[a] - unit[b]).norm() - edge).abs() < 1e-9;
+                if adj(i, j) && adj(j, k) && adj(i, k) {
+                    faces.push((unit[i], unit[j], unit[k]));
+                }
+            }
+        }
+    }
+    assert_eq!(faces.len(), 20);
+    let mut pts: Vec<V> = vec![V::zeros()];
+    for k in 1..=shells {
+        let mut shell: Vec<V> = Vec::new();
+        for (a, b, c) in &faces {
+            for i in 0..=k {
+                for j in 0..=k - i {
+                    let l = k - i - j;
+                    let p = a * i as f64 + b * j as f64 + c * l as f64;
+                    if !shell.iter().any(|q| (q - p).norm() < 1e-6) {
+                        shell.push(p);
+                    }
+                }
+            }
+        }
+        assert_eq!(shell.len(), 10 * k * k + 2);
+        pts.extend(shell);
+    }
+    Molecule::new(
+        "Mackay icosahedron",
+        pts.into_iter().map(|p| Atom::new(79, p)).collect(),
+    )
+}
+
+/// fcc cuboctahedron (group Oh) with `shells` shells: lattice points (x, y, z)·a/2 with
+/// x + y + z even, max(|x|, |y|, |z|) ≤ shells and |x| + |y| + |z| ≤ 2·shells; shell k
+/// holds 10k² + 2 atoms, so 7 shells give 1415 atoms.
+pub fn fcc_cuboctahedron(shells: i64, a: f64) -> Molecule {
+    let n = shells;
+    let mut atoms = Vec::new();
+    for x in -n..=n {
+        for y in -n..=n {
+            for z in -n..=n {
+                let m = x.abs().max(y.abs()).max(z.abs());
+                let sum = x.abs() + y.abs() + z.abs();
+                if (x + y + z).rem_euclid(2) == 0 && m <= n && sum <= 2 * n {
+                    atoms.push(Atom::new(29, v(x as f64, y as f64, z as f64) * (a / 2.0)));
+                }
+            }
+        }
+    }
+    Molecule::new("fcc cuboctahedron", atoms)
+}
+
+/// fcc cube (group Oh): lattice points (x, y, z)·a/2 with x + y + z even, |x|,|y|,|z| ≤ n.
+pub fn fcc_cube(n: i64, a: f64) -> Molecule {
+    let mut atoms = Vec::new();
+    for x in -n..=n {
+        for y in -n..=n {
+            for z in -n..=n {
+                if (x + y + z).rem_euclid(2) == 0 {
+                    atoms.push(Atom::new(29, v(x as f64, y as f64, z as f64) * (a / 2.0)));
+                }
+            }
+        }
+    }
+    Molecule::new("fcc cube", atoms)
+}
