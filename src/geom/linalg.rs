@@ -1,8 +1,10 @@
 //! Small 3×3 linear-algebra helpers for symmetry work: rotations, reflections, improper
-//! rotations, Kabsch best-fit rotation (W. Kabsch, Acta Cryst. A32, 922 (1976)), rotation
+//! rotations, a cyclic Jacobi eigensolver for small symmetric matrices (robust for the
+//! nearly diagonal, degenerate matrices symmetric molecules produce), best-fit rotation by
+//! Horn's quaternion method (B. K. P. Horn, J. Opt. Soc. Am. A 4, 629 (1987)), rotation
 //! axis extraction and group closure of generator matrices.
 
-use nalgebra::{Matrix3, SymmetricEigen, Vector3};
+use nalgebra::{Matrix3, Vector3};
 
 pub(crate) type V3 = Vector3<f64>;
 pub(crate) type M3 = Matrix3<f64>;
@@ -26,25 +28,111 @@ pub(crate) fn improper(axis: &V3, angle: f64) -> M3 {
     reflection(axis) * rotation(axis, angle)
 }
 
-/// Rotation R minimising Σ |R·src_i − dst_i|² (points already centred).
+/// Eigenvalues (ascending) and unit eigenvectors of a symmetric N×N matrix, by cyclic
+/// Jacobi rotations.
+pub(crate) fn jacobi<const N: usize>(m: [[f64; N]; N]) -> ([f64; N], [[f64; N]; N]) {
+    let mut a = m;
+    let mut v = [[0.0; N]; N];
+    for (i, row) in v.iter_mut().enumerate() {
+        row[i] = 1.0;
+    }
+    for _sweep in 0..60 {
+        let off: f64 = (0..N)
+            .flat_map(|i| (0..N).filter(move |&j| j != i).map(move |j| (i, j)))
+            .map(|(i, j)| a[i][j] * a[i][j])
+            .sum();
+        let scale: f64 = (0..N).map(|i| a[i][i] * a[i][i]).sum::<f64>() + off;
+        if off <= 1e-30 * scale.max(1e-300) || !off.is_finite() {
+            break;
+        }
+        for p in 0..N {
+            for q in p + 1..N {
+                if a[p][q].abs() < 1e-300 {
+                    continue;
+                }
+                let theta = (a[q][q] - a[p][p]) / (2.0 * a[p][q]);
+                let t = theta.signum() / (theta.abs() + (theta * theta + 1.0).sqrt());
+                let t = if theta == 0.0 { 1.0 } else { t };
+                let c = 1.0 / (t * t + 1.0).sqrt();
+                let s = t * c;
+                for row in a.iter_mut() {
+                    let (akp, akq) = (row[p], row[q]);
+                    row[p] = c * akp - s * akq;
+                    row[q] = s * akp + c * akq;
+                }
+                let (rp, rq) = (a[p], a[q]);
+                for k in 0..N {
+                    a[p][k] = c * rp[k] - s * rq[k];
+                    a[q][k] = s * rp[k] + c * rq[k];
+                }
+                for row in v.iter_mut() {
+                    let (vp, vq) = (row[p], row[q]);
+                    row[p] = c * vp - s * vq;
+                    row[q] = s * vp + c * vq;
+                }
+            }
+        }
+    }
+    let mut idx: [usize; N] = [0; N];
+    for (i, x) in idx.iter_mut().enumerate() {
+        *x = i;
+    }
+    idx.sort_by(|&i, &j| a[i][i].total_cmp(&a[j][j]));
+    let mut vals = [0.0; N];
+    let mut vecs = [[0.0; N]; N];
+    for (k, &i) in idx.iter().enumerate() {
+        vals[k] = a[i][i];
+        for r in 0..N {
+            vecs[k][r] = v[r][i];
+        }
+    }
+    (vals, vecs)
+}
+
+/// Eigenvalues (ascending) and eigenvectors of a symmetric 3×3 matrix.
+pub(crate) fn sym_eigen(m: &M3) -> ([f64; 3], [V3; 3]) {
+    let a = [
+        [m[(0, 0)], m[(0, 1)], m[(0, 2)]],
+        [m[(1, 0)], m[(1, 1)], m[(1, 2)]],
+        [m[(2, 0)], m[(2, 1)], m[(2, 2)]],
+    ];
+    let (vals, vecs) = jacobi(a);
+    (vals, vecs.map(|c| V3::new(c[0], c[1], c[2])))
+}
+
+/// Rotation R minimising Σ |R·src_i − dst_i|² (points already centred), Horn's method.
 pub(crate) fn kabsch(src: &[V3], dst: &[V3]) -> M3 {
-    let mut h = M3::zeros();
+    let mut s = M3::zeros();
     for (a, b) in src.iter().zip(dst) {
-        h += a * b.transpose();
+        s += a * b.transpose();
     }
-    let svd = h.svd(true, true);
-    let (Some(u), Some(vt)) = (svd.u, svd.v_t) else {
+    let (xx, xy, xz) = (s[(0, 0)], s[(0, 1)], s[(0, 2)]);
+    let (yx, yy, yz) = (s[(1, 0)], s[(1, 1)], s[(1, 2)]);
+    let (zx, zy, zz) = (s[(2, 0)], s[(2, 1)], s[(2, 2)]);
+    let n = [
+        [xx + yy + zz, yz - zy, zx - xz, xy - yx],
+        [yz - zy, xx - yy - zz, xy + yx, zx + xz],
+        [zx - xz, xy + yx, -xx + yy - zz, yz + zy],
+        [xy - yx, zx + xz, yz + zy, -xx - yy + zz],
+    ];
+    let (_, vecs) = jacobi(n);
+    let q = vecs[3];
+    let norm = q.iter().map(|x| x * x).sum::<f64>().sqrt();
+    if !(norm.is_finite() && norm > 0.5) {
         return M3::identity();
-    };
-    let v = vt.transpose();
-    let d = (v * u.transpose()).determinant();
-    let corr = M3::from_diagonal(&V3::new(1.0, 1.0, if d < 0.0 { -1.0 } else { 1.0 }));
-    let r = v * corr * u.transpose();
-    if r.iter().all(|x| x.is_finite()) {
-        r
-    } else {
-        M3::identity()
     }
+    let [w, x, y, z] = q.map(|c| c / norm);
+    M3::new(
+        w * w + x * x - y * y - z * z,
+        2.0 * (x * y - w * z),
+        2.0 * (x * z + w * y),
+        2.0 * (x * y + w * z),
+        w * w - x * x + y * y - z * z,
+        2.0 * (y * z - w * x),
+        2.0 * (x * z - w * y),
+        2.0 * (y * z + w * x),
+        w * w - x * x - y * y + z * z,
+    )
 }
 
 /// Rotation R and translation t minimising Σ |R·src_i + t − dst_i|².
@@ -58,21 +146,27 @@ pub(crate) fn kabsch_translate(src: &[V3], dst: &[V3]) -> (M3, V3) {
     (r, cd - r * cs)
 }
 
-/// Axis of a proper rotation (eigenvector of the symmetric part with the largest
-/// eigenvalue), with the sign of `hint`.
+/// Axis of a proper rotation with the sign of `hint`: from the antisymmetric part when
+/// the angle is clearly below π, else from (R + Rᵀ)/2 − cos θ·I = (1 − cos θ)·u·uᵀ.
 pub(crate) fn rotation_axis(r: &M3, hint: &V3) -> V3 {
-    let sym = (r + r.transpose()) * 0.5;
-    let eig = SymmetricEigen::new(sym);
-    let mut best = 0;
-    for k in 1..3 {
-        if eig.eigenvalues[k] > eig.eigenvalues[best] {
-            best = k;
-        }
-    }
-    let v: V3 = eig.eigenvectors.column(best).into_owned();
-    let v = if v.dot(hint) < 0.0 { -v } else { v };
-    if v.iter().all(|x| x.is_finite()) && v.norm() > 0.5 {
-        v.normalize()
+    let w = V3::new(
+        r[(2, 1)] - r[(1, 2)],
+        r[(0, 2)] - r[(2, 0)],
+        r[(1, 0)] - r[(0, 1)],
+    );
+    let c = ((r.trace() - 1.0) / 2.0).clamp(-1.0, 1.0);
+    let u = if w.norm() > 0.5 {
+        w
+    } else {
+        let b = (r + r.transpose()) * 0.5 - M3::identity() * c;
+        let k = (0..3)
+            .max_by(|&i, &j| b.column(i).norm().total_cmp(&b.column(j).norm()))
+            .unwrap_or(0);
+        b.column(k).into_owned()
+    };
+    let u = if u.dot(hint) < 0.0 { -u } else { u };
+    if u.iter().all(|x| x.is_finite()) && u.norm() > 1e-9 {
+        u.normalize()
     } else {
         hint.normalize()
     }

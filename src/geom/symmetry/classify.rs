@@ -37,7 +37,10 @@ fn frame_from(x: V3, z: V3) -> M3 {
 }
 
 fn largest_divisor_at_most(n: usize, cap: usize) -> usize {
-    (1..=cap.min(n)).rev().find(|d| n.is_multiple_of(*d)).unwrap_or(1)
+    (1..=cap.min(n))
+        .rev()
+        .find(|d| n.is_multiple_of(*d))
+        .unwrap_or(1)
 }
 
 /// Flips `z` so that the mass-weighted third moment along it is non-negative.

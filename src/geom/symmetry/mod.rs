@@ -22,7 +22,7 @@ use nalgebra::{Matrix3, Vector3};
 use serde::{Deserialize, Serialize};
 
 use super::elements;
-use super::linalg::{perpendicular, M3, V3};
+use super::linalg::{perpendicular, sym_eigen, M3, V3};
 use super::molecule::{check_positive, Molecule};
 use super::GeomError;
 pub use groups::{group_order, supported_groups, Family};
@@ -126,9 +126,7 @@ fn linear(mol: &Molecule, tol: f64) -> Option<Detection> {
     let centre = mol.centroid();
     let ctx = prepare(mol, &centre, 2.0 * tol);
     let cov: M3 = ctx.pos.iter().map(|p| p * p.transpose()).sum();
-    let eig = nalgebra::SymmetricEigen::new(cov);
-    let k = (0..3).max_by(|&a, &b| eig.eigenvalues[a].total_cmp(&eig.eigenvalues[b]))?;
-    let e: V3 = eig.eigenvectors.column(k).normalize();
+    let e: V3 = sym_eigen(&cov).1[2].normalize();
     let perp = ctx
         .pos
         .iter()

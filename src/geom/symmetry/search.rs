@@ -12,7 +12,7 @@
 use std::collections::HashSet;
 
 use super::super::grid::Grid;
-use super::super::linalg::{kabsch, reflection, rotation, rotation_axis, M3, V3};
+use super::super::linalg::{kabsch, reflection, rotation, rotation_axis, sym_eigen, M3, V3};
 use super::classes::{classes, Class};
 use std::f64::consts::PI;
 
@@ -139,10 +139,7 @@ pub(crate) fn inertia_axes(ctx: &Ctx) -> [V3; 3] {
     for (p, m) in ctx.pos.iter().zip(&ctx.mass) {
         t += (M3::identity() * p.norm_squared() - p * p.transpose()) * *m;
     }
-    let eig = nalgebra::SymmetricEigen::new(t);
-    let mut idx = [0usize, 1, 2];
-    idx.sort_by(|&a, &b| eig.eigenvalues[a].total_cmp(&eig.eigenvalues[b]));
-    idx.map(|k| eig.eigenvectors.column(k).into_owned())
+    sym_eigen(&t).1
 }
 
 fn candidates(ctx: &Ctx, classes: &[Class]) -> Candidates {
