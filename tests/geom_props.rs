@@ -172,3 +172,17 @@ fn degenerate_inputs_do_not_panic() {
     assert_eq!(detect(&bz, 1e-12).unwrap().group, "D6h");
     let _ = near_misses(&bz, &[0.5, 1.0, 3.0]).unwrap();
 }
+
+#[test]
+fn adamantane_atom_orders_regression() {
+    // Once lost Td for one atom order (a wrong eigenvector from a near-diagonal matrix).
+    use rand::{seq::SliceRandom, SeedableRng};
+    let c = pick("adamantane");
+    for seed in 0..40u64 {
+        let mut rng = rand::rngs::StdRng::seed_from_u64(seed);
+        let mut idx: Vec<usize> = (0..c.mol.atoms.len()).collect();
+        idx.shuffle(&mut rng);
+        let m = Molecule::new("s", idx.iter().map(|&i| c.mol.atoms[i].clone()).collect());
+        assert_eq!(detect(&m, 0.01).unwrap().group, "Td", "seed {seed}");
+    }
+}
