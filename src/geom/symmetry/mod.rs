@@ -233,16 +233,27 @@ pub fn detect(mol: &Molecule, tol: f64) -> Result<Detection, GeomError> {
 /// The group at each tolerance in `tolerances` (ascending order is kept as given), with
 /// its largest deviation — e.g. for "D3h at 0.01 Å; D6h if 0.08 Å is allowed".
 pub fn near_misses(mol: &Molecule, tolerances: &[f64]) -> Result<Vec<NearMiss>, GeomError> {
-    tolerances
-        .iter()
-        .map(|&t| {
-            detect(mol, t).map(|d| NearMiss {
-                tolerance: t,
-                group: d.group,
-                max_deviation: d.max_deviation,
-            })
-        })
-        .collect()
+    let mut out: Vec<NearMiss> = Vec::with_capacity(tolerances.len());
+    for &t in tolerances {
+        // Ih and D∞h contain every other group a molecule can have: once reached, a looser
+        // tolerance cannot find more (and the search at large tolerances is the costly part).
+        if let Some(last) = out.last() {
+            if (last.group == "Ih" || last.group == "Dinfh") && t >= last.tolerance {
+                out.push(NearMiss {
+                    tolerance: t,
+                    ..last.clone()
+                });
+                continue;
+            }
+        }
+        let d = detect(mol, t)?;
+        out.push(NearMiss {
+            tolerance: t,
+            group: d.group,
+            max_deviation: d.max_deviation,
+        });
+    }
+    Ok(out)
 }
 
 /// A one-line summary of a near-miss report: the first group, then each different group
