@@ -251,7 +251,8 @@ pub fn analyze(a: &AnalyzeArgs, ascii: bool) -> CliResult {
                     Ok((t, _)) => {
                         let _ = writeln!(out, "{t}");
                     }
-                    Err(e) => eprintln!("salcdesk: {e}"),
+                    Err(e) if !single => eprintln!("salcdesk: {e}"),
+                    Err(_) => {}
                 }
             }
         }

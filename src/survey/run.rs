@@ -50,6 +50,55 @@ pub enum SurveyError {
     Group(#[from] group::PointGroupError),
     #[error("{0}")]
     Reduction(String),
+    #[error(
+        "atoms {a} and {b} are {distance:.2e} Å apart (closer than {limit} Å): duplicated atoms?"
+    )]
+    AtomsTooClose {
+        a: usize,
+        b: usize,
+        distance: f64,
+        limit: f64,
+    },
+}
+
+/// Closest distance two atoms of a real molecule may have (shortest bonds are ~0.74 Å).
+pub const MIN_ATOM_DISTANCE: f64 = 0.1;
+
+/// Refuse atoms closer than `limit` (a spatial hash keeps this linear in atom count).
+fn check_close_atoms(mol: &Molecule, limit: f64) -> Result<(), SurveyError> {
+    use std::collections::HashMap;
+    let key = |p: &nalgebra::Vector3<f64>| {
+        (
+            (p.x / limit).floor() as i64,
+            (p.y / limit).floor() as i64,
+            (p.z / limit).floor() as i64,
+        )
+    };
+    let mut cells: HashMap<(i64, i64, i64), Vec<usize>> = HashMap::new();
+    for (i, a) in mol.atoms.iter().enumerate() {
+        let (x, y, z) = key(&a.position);
+        for dx in -1..=1 {
+            for dy in -1..=1 {
+                for dz in -1..=1 {
+                    if let Some(list) = cells.get(&(x + dx, y + dy, z + dz)) {
+                        for &j in list {
+                            let d = (mol.atoms[j].position - a.position).norm();
+                            if d < limit {
+                                return Err(SurveyError::AtomsTooClose {
+                                    a: j + 1,
+                                    b: i + 1,
+                                    distance: d,
+                                    limit,
+                                });
+                            }
+                        }
+                    }
+                }
+            }
+        }
+        cells.entry((x, y, z)).or_default().push(i);
+    }
+    Ok(())
 }
 
 /// A reduced representation of one bond or angle set.
@@ -129,6 +178,7 @@ fn count_angles(bonds: &[(usize, usize)], n_atoms: usize) -> usize {
 /// Survey a molecule.
 pub fn survey(mol: &Molecule, opts: &SurveyOptions) -> Result<Survey, SurveyError> {
     mol.validate()?;
+    check_close_atoms(mol, MIN_ATOM_DISTANCE)?;
     let detection = geom::detect(mol, opts.tolerance)?;
     let g = group::load(&detection.group)?;
     let w = if g.is_linear() {
