@@ -8,3 +8,4 @@
 pub mod exact;
 pub mod group;
 pub mod rep;
+pub mod spectra;

@@ -1,0 +1,20 @@
+//! Vibrational spectroscopy on top of the group and representation layers: IR/Raman activity
+//! and band counts for a Γ of fundamentals, overtone and combination levels, checking observed
+//! band lists against a prediction, and descent in symmetry (correlation with a subgroup).
+//!
+//! Owns the spectroscopic rules and their report structures (serde-serializable). Knows no
+//! terminal: text rendering helpers in [`render`] return strings.
+
+mod activity;
+mod error;
+mod real;
+
+pub use activity::{
+    activity_table, modes_from_text, modes_report, IrrepActivity, ModeLine, ModesReport,
+    MUTUAL_EXCLUSION,
+};
+pub use error::SpectraError;
+pub use real::{
+    is_centrosymmetric, is_totally_symmetric, parse_gamma, real_character, real_index, real_irreps,
+    to_real, to_rows, RealIrrep,
+};
