@@ -6,15 +6,24 @@
 //! terminal: text rendering helpers in [`render`] return strings.
 
 mod activity;
+mod combos;
 mod error;
+mod lambda;
 mod real;
+mod symmetry;
 
 pub use activity::{
     activity_table, modes_from_text, modes_report, IrrepActivity, ModeLine, ModesReport,
     MUTUAL_EXCLUSION,
 };
+pub use combos::{
+    fundamentals_from_gamma, predict_combinations, CombinationBand, CombinationOptions,
+    CombinationsReport, Fundamental, LevelKind, ANHARMONIC_NOTE,
+};
 pub use error::SpectraError;
+pub use lambda::Species;
 pub use real::{
     is_centrosymmetric, is_totally_symmetric, parse_gamma, real_character, real_index, real_irreps,
     to_real, to_rows, RealIrrep,
 };
+pub use symmetry::{combination, overtone, symmetry_of_real, symmetry_of_rows, SymTerm, Symmetry};
