@@ -6,6 +6,8 @@
 //! terminal: text rendering helpers in [`render`] return strings.
 
 mod activity;
+mod bands;
+mod check;
 mod combos;
 mod error;
 mod lambda;
@@ -15,6 +17,10 @@ mod symmetry;
 pub use activity::{
     activity_table, modes_from_text, modes_report, IrrepActivity, ModeLine, ModesReport,
     MUTUAL_EXCLUSION,
+};
+pub use bands::{parse_bands, Band, BandFileError, Intensity, Polarization, Technique};
+pub use check::{
+    check_bands, BandCheck, BandVerdict, CheckOptions, Conflict, CountCheck, LevelMatch,
 };
 pub use combos::{
     fundamentals_from_gamma, predict_combinations, CombinationBand, CombinationOptions,
