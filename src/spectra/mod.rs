@@ -9,9 +9,12 @@ mod activity;
 mod bands;
 mod check;
 mod combos;
+mod descent;
+mod embed;
 mod error;
 mod lambda;
 mod real;
+mod subgroups;
 mod symmetry;
 
 pub use activity::{
@@ -26,10 +29,14 @@ pub use combos::{
     fundamentals_from_gamma, predict_combinations, CombinationBand, CombinationOptions,
     CombinationsReport, Fundamental, LevelKind, ANHARMONIC_NOTE,
 };
+pub use descent::{
+    descend, descend_names, ClassLink, CorrelationRow, DescentReport, Embedding, ModeSplit,
+};
 pub use error::SpectraError;
 pub use lambda::Species;
 pub use real::{
     is_centrosymmetric, is_totally_symmetric, parse_gamma, real_character, real_index, real_irreps,
     to_real, to_rows, RealIrrep,
 };
+pub use subgroups::{conjugacy_classes, subgroups_of_order, OpSet};
 pub use symmetry::{combination, overtone, symmetry_of_real, symmetry_of_rows, SymTerm, Symmetry};
