@@ -14,6 +14,7 @@ mod embed;
 mod error;
 mod lambda;
 mod real;
+pub mod render;
 mod subgroups;
 mod symmetry;
 
