@@ -5,7 +5,11 @@
 //! point-group detection ([`geom`]). The command line and the terminal workspace are thin
 //! faces over it.
 
+pub mod cli;
 pub mod exact;
 pub mod group;
 pub mod rep;
+pub mod report;
+#[doc(hidden)]
+pub mod robustness;
 pub mod spectra;

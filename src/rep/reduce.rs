@@ -218,3 +218,124 @@ pub fn pair_label(label: &str) -> String {
         .trim_start_matches(|c: char| c.is_ascii_digit())
         .to_string()
 }
+
+/// Parse `A1 + 2E`, `T2`, `E'+A2''`, `Sigma+g + Piu` (ASCII or Unicode labels; `E` also names a
+/// 1E+2E pair) into multiplicities in table order. Labels are matched longest first, so `+`
+/// inside a label (Σ⁺) is not taken for a sum.
+pub fn parse_gamma(g: &PointGroup, text: &str) -> Result<Vec<u64>, String> {
+    let mut m = vec![0u64; g.table.irreps.len()];
+    // Every spelling → the irreps it stands for.
+    let mut names: Vec<(String, Vec<usize>)> = Vec::new();
+    for (i, ir) in g.table.irreps.iter().enumerate() {
+        names.push((ir.label.clone(), vec![i]));
+        names.push((ir.display(), vec![i]));
+        if let Some(p) = ir.pair {
+            let real = pair_label(&ir.label);
+            names.push((real.clone(), vec![i, p]));
+            names.push((crate::group::display_label(&real), vec![i, p]));
+        }
+    }
+    names.sort_by_key(|(n, _)| std::cmp::Reverse(n.chars().count()));
+    let chars: Vec<char> = text.replace('−', "-").chars().collect();
+    let mut pos = 0;
+    let mut terms = 0;
+    while pos < chars.len() {
+        if chars[pos].is_whitespace() || chars[pos] == '+' {
+            pos += 1;
+            continue;
+        }
+        let rest: String = chars[pos..].iter().collect();
+        // A label that itself starts with a digit (1E) wins over a count.
+        let matched = |s: &str| {
+            names
+                .iter()
+                .find(|(n, _)| {
+                    s.starts_with(n.as_str()) || s.to_lowercase().starts_with(&n.to_lowercase())
+                })
+                .cloned()
+        };
+        let (count, after) = match matched(&rest) {
+            Some(_) if !rest.starts_with(|c: char| c.is_ascii_digit()) => (1, rest.clone()),
+            _ => {
+                let digits: String = rest.chars().take_while(|c| c.is_ascii_digit()).collect();
+                let n = if digits.is_empty() {
+                    1
+                } else {
+                    digits
+                        .parse::<u64>()
+                        .map_err(|_| format!("bad count in '{text}'"))?
+                };
+                let after: String = rest.chars().skip(digits.chars().count()).collect();
+                // "1E" alone: prefer the label reading when the count reading fails.
+                if !digits.is_empty()
+                    && matched(after.trim_start()).is_none()
+                    && matched(&rest).is_some()
+                {
+                    (1, rest.clone())
+                } else {
+                    (n, after.trim_start().to_string())
+                }
+            }
+        };
+        let Some((name, idx)) = matched(&after) else {
+            let labels: Vec<&str> = g.table.irreps.iter().map(|i| i.label.as_str()).collect();
+            let word: String = after.chars().take_while(|c| !c.is_whitespace()).collect();
+            return Err(format!(
+                "'{word}' is not an irrep of {} ({})",
+                g.name(),
+                labels.join(", ")
+            ));
+        };
+        for i in idx {
+            m[i] += count;
+        }
+        terms += 1;
+        pos = chars.len() - after.chars().count() + name.chars().count();
+    }
+    if terms == 0 {
+        return Err("no irreps given".into());
+    }
+    Ok(m)
+}
+
+/// One term of a decomposition as a chemist reads it: label, multiplicity, dimension. A
+/// complex-conjugate pair with equal multiplicities becomes one real degenerate term (E, dim 2).
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct RealTerm {
+    pub label: String,
+    pub multiplicity: u64,
+    pub dimension: usize,
+    /// Irrep indices the term stands for (two for a pair).
+    pub irreps: Vec<usize>,
+}
+
+/// The non-zero terms of multiplicities `m`, pairs merged.
+pub fn real_terms(g: &PointGroup, m: &[u64]) -> Vec<RealTerm> {
+    let mut out = Vec::new();
+    for (i, &n) in m.iter().enumerate() {
+        if n == 0 {
+            continue;
+        }
+        let ir = &g.table.irreps[i];
+        match ir.pair {
+            Some(p) if m.get(p) == Some(&n) => {
+                if p < i {
+                    continue;
+                }
+                out.push(RealTerm {
+                    label: pair_label(&ir.label),
+                    multiplicity: n,
+                    dimension: 2 * ir.dim(),
+                    irreps: vec![i, p],
+                });
+            }
+            _ => out.push(RealTerm {
+                label: ir.label.clone(),
+                multiplicity: n,
+                dimension: ir.dim(),
+                irreps: vec![i],
+            }),
+        }
+    }
+    out
+}

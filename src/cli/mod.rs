@@ -1,0 +1,110 @@
+//! The command line: one subcommand per job, each a thin call into the library core.
+//!
+//! Exit codes: 0 success, 2 bad input (message on stderr), 1 other failures.
+
+mod table_cmds;
+
+use clap::{Parser, Subcommand};
+
+/// A failure to report to the user: message, optional hint, exit code.
+#[derive(Debug)]
+pub struct CliError {
+    pub message: String,
+    pub hint: Option<String>,
+    pub code: i32,
+}
+
+impl CliError {
+    pub fn input(message: impl Into<String>) -> Self {
+        CliError {
+            message: message.into(),
+            hint: None,
+            code: 2,
+        }
+    }
+    pub fn with_hint(mut self, hint: impl Into<String>) -> Self {
+        self.hint = Some(hint.into());
+        self
+    }
+}
+
+pub type CliResult = Result<(), CliError>;
+
+#[derive(Parser, Debug)]
+#[command(
+    name = "salcdesk",
+    version,
+    about = "Molecular symmetry workspace: point groups, representations, SALCs, vibrational activity",
+    long_about = "salcdesk finds point groups, reduces representations exactly, builds SALCs and \
+predicts IR/Raman activity. Without a command it opens the terminal workspace on the demo session.\n\
+Results are predictions: they support, not replace, experiment and the judgement of the chemist."
+)]
+pub struct Cli {
+    /// Plain ASCII output (no Unicode subscripts, Greek letters or √).
+    #[arg(long, global = true)]
+    pub ascii: bool,
+    #[command(subcommand)]
+    pub command: Option<Command>,
+}
+
+#[derive(Subcommand, Debug)]
+pub enum Command {
+    /// List every point group salcdesk has a table for.
+    Groups(table_cmds::GroupsArgs),
+    /// Print a character table.
+    Table(table_cmds::TableArgs),
+    /// Reduce a representation given by characters or unmoved counts.
+    Reduce(table_cmds::ReduceArgs),
+    /// Direct product, symmetric or antisymmetric square of representations.
+    Product(table_cmds::ProductArgs),
+    /// Check a table file against every rule the shipped tables obey.
+    CheckTable(table_cmds::CheckTableArgs),
+}
+
+/// Run a parsed command line (everything but the terminal workspace).
+pub fn run(cli: &Cli) -> CliResult {
+    let ascii = cli.ascii;
+    match &cli.command {
+        Some(Command::Groups(a)) => table_cmds::groups(a, ascii),
+        Some(Command::Table(a)) => table_cmds::table(a, ascii),
+        Some(Command::Reduce(a)) => table_cmds::reduce(a, ascii),
+        Some(Command::Product(a)) => table_cmds::product(a, ascii),
+        Some(Command::CheckTable(a)) => table_cmds::check_table(a),
+        None => Ok(()),
+    }
+}
+
+/// Parse `--format` values.
+pub fn parse_format(s: &str) -> Result<crate::report::Format, String> {
+    crate::report::Format::parse(s)
+        .ok_or_else(|| format!("unknown format '{s}' (text, md, latex, json)"))
+}
+
+/// Let negative exact numbers (`-1`, `-1/2`, `-sqrt(2)`) pass as values: a lone-dash argument that
+/// is not a known short flag but parses as a number gets a Unicode minus, which the number
+/// syntax reads the same way.
+pub fn preprocess_args(args: Vec<String>) -> Vec<String> {
+    args.into_iter()
+        .map(|a| {
+            let is_short_flag = matches!(a.as_str(), "-f" | "-h" | "-V" | "-o");
+            if a.starts_with('-')
+                && !a.starts_with("--")
+                && !is_short_flag
+                && crate::exact::parse(&a).is_ok()
+            {
+                format!("−{}", &a[1..])
+            } else {
+                a
+            }
+        })
+        .collect()
+}
+
+/// Print a CliError the friendly way and return its exit code.
+pub fn report_error(e: &CliError) -> i32 {
+    eprintln!("salcdesk: {}", e.message);
+    if let Some(h) = &e.hint {
+        eprintln!("  hint: {h}");
+    }
+    e.code
+}

@@ -1,0 +1,386 @@
+//! Character tables rendered as plain text, Markdown, LaTeX and JSON.
+//!
+//! The JSON shape is a stable interface for other tools (documented in README):
+//! `{"group", "order", "classes": [{"symbol", "size", "representative", "elements"}],
+//!   "irreps": [{"label", "characters", "characters_float", "functions"}]}`.
+
+use super::{grid, Format};
+use crate::exact::{Cyclo, Notation};
+use crate::group::{CharacterTable, PointGroup};
+use serde_json::{json, Value};
+
+/// Function texts of an irrep, linear first.
+fn functions(t: &CharacterTable, i: usize, ascii: bool) -> Vec<String> {
+    t.irreps[i]
+        .functions
+        .all()
+        .map(|f| {
+            if ascii {
+                f.text.clone()
+            } else {
+                pretty_function(&f.text)
+            }
+        })
+        .collect()
+}
+
+/// `x^2-y^2` → `x²−y²`, `Rx` → `Rₓ` is left alone (Rx is customary).
+pub fn pretty_function(s: &str) -> String {
+    s.replace("^2", "²").replace("^3", "³").replace('-', "−")
+}
+
+fn char_text(g: &PointGroup, i: usize, c: usize, nt: Notation) -> String {
+    let ir = &g.table.irreps[i];
+    match ir.chars.get(c) {
+        Some(v) => v.text(nt),
+        None => {
+            let t = ir.char_text[c].clone();
+            match nt {
+                Notation::Unicode => t.replace("phi", "φ").replace('-', "−"),
+                Notation::Ascii => t,
+            }
+        }
+    }
+}
+
+/// Render a group's character table.
+pub fn render(g: &PointGroup, format: Format, ascii: bool) -> String {
+    let nt = if ascii {
+        Notation::Ascii
+    } else {
+        Notation::Unicode
+    };
+    match format {
+        Format::Json => serde_json::to_string_pretty(&to_json(g)).unwrap_or_default() + "\n",
+        Format::Text => text(g, nt, ascii),
+        Format::Markdown => markdown(g, nt, ascii),
+        Format::Latex => latex(g),
+    }
+}
+
+fn header(g: &PointGroup, ascii: bool) -> Vec<String> {
+    let t = &g.table;
+    let mut h = vec![if ascii {
+        t.name.clone()
+    } else {
+        t.symbol.clone()
+    }];
+    for c in &t.classes {
+        h.push(if ascii {
+            c.ascii.clone()
+        } else {
+            c.symbol.clone()
+        });
+    }
+    h.push("functions".into());
+    h
+}
+
+fn label(g: &PointGroup, i: usize, ascii: bool) -> String {
+    let ir = &g.table.irreps[i];
+    if ascii {
+        ir.label.clone()
+    } else {
+        ir.display()
+    }
+}
+
+fn text(g: &PointGroup, nt: Notation, ascii: bool) -> String {
+    let t = &g.table;
+    let mut rows = vec![header(g, ascii)];
+    for i in 0..t.irreps.len() {
+        let mut r = vec![label(g, i, ascii)];
+        for c in 0..t.classes.len() {
+            r.push(char_text(g, i, c, nt));
+        }
+        r.push(functions(t, i, ascii).join("; "));
+        rows.push(r);
+    }
+    let order = t
+        .order
+        .map(|o| format!("order {o}"))
+        .unwrap_or_else(|| "infinite order".into());
+    format!(
+        "{} ({}, {})\n{}\n{}",
+        if ascii { &t.name } else { &t.symbol },
+        t.family.name(),
+        order,
+        grid::render(&rows, ascii),
+        wrap(&if ascii {
+            super::ascii_prose(&t.orientation)
+        } else {
+            t.orientation.clone()
+        })
+    )
+}
+
+fn wrap(s: &str) -> String {
+    let mut out = String::new();
+    let mut line = String::new();
+    for w in s.split_whitespace() {
+        if line.chars().count() + w.chars().count() + 1 > 78 && !line.is_empty() {
+            out.push_str(&line);
+            out.push('\n');
+            line.clear();
+        }
+        if !line.is_empty() {
+            line.push(' ');
+        }
+        line.push_str(w);
+    }
+    out.push_str(&line);
+    out.push('\n');
+    out
+}
+
+fn markdown(g: &PointGroup, nt: Notation, ascii: bool) -> String {
+    let t = &g.table;
+    let h = header(g, ascii);
+    let mut out = format!("### {}\n\n", if ascii { &t.name } else { &t.symbol });
+    out.push_str(&format!("| {} |\n", h.join(" | ")));
+    out.push_str(&format!("|{}\n", "---|".repeat(h.len())));
+    for i in 0..t.irreps.len() {
+        let mut r = vec![label(g, i, ascii)];
+        for c in 0..t.classes.len() {
+            r.push(char_text(g, i, c, nt));
+        }
+        r.push(functions(t, i, ascii).join("; "));
+        out.push_str(&format!("| {} |\n", r.join(" | ")));
+    }
+    let orientation = if ascii {
+        super::ascii_prose(&t.orientation)
+    } else {
+        t.orientation.clone()
+    };
+    out.push_str(&format!("\n{}\n", orientation.trim()));
+    out
+}
+
+/// LaTeX for an exact number (math mode body).
+pub fn latex_number(v: &Cyclo) -> String {
+    latex_text(&v.text(Notation::Ascii))
+}
+
+/// Turn ASCII notation into LaTeX math: sqrt(5) → \sqrt{5}, pi → \pi, exp(...) → e^{...}.
+pub fn latex_text(s: &str) -> String {
+    let mut out = String::new();
+    let chars: Vec<char> = s.chars().collect();
+    let mut i = 0;
+    while i < chars.len() {
+        let rest: String = chars[i..].iter().collect();
+        if rest.starts_with("sqrt(") || rest.starts_with("exp(") {
+            let is_sqrt = rest.starts_with("sqrt(");
+            let start = i + if is_sqrt { 5 } else { 4 };
+            let mut depth = 1;
+            let mut j = start;
+            while j < chars.len() && depth > 0 {
+                match chars[j] {
+                    '(' => depth += 1,
+                    ')' => depth -= 1,
+                    _ => {}
+                }
+                j += 1;
+            }
+            let inner: String = chars[start..j.saturating_sub(1)].iter().collect();
+            let inner = latex_text(&inner);
+            if is_sqrt {
+                out.push_str(&format!("\\sqrt{{{inner}}}"));
+            } else {
+                out.push_str(&format!("e^{{{}}}", inner.replace(" i", "i")));
+            }
+            i = j;
+        } else if rest.starts_with("pi") {
+            out.push_str("\\pi ");
+            i += 2;
+        } else if rest.starts_with("cos(") {
+            out.push_str("\\cos(");
+            i += 4;
+        } else if rest.starts_with("phi") {
+            out.push_str("\\varphi ");
+            i += 3;
+        } else if chars[i] == '*' {
+            out.push_str("\\cdot ");
+            i += 1;
+        } else {
+            out.push(chars[i]);
+            i += 1;
+        }
+    }
+    out
+}
+
+/// LaTeX form of a Mulliken label: A1g → A_{1g}, E' → E', 1E → {}^{1}E, Sigma+g → \Sigma_g^+.
+pub fn latex_label(label: &str) -> String {
+    let mut s = label.to_string();
+    let mut prefix = String::new();
+    if s.starts_with(|c: char| c.is_ascii_digit()) {
+        let d: String = s.chars().take_while(|c| c.is_ascii_digit()).collect();
+        prefix = format!("{{}}^{{{d}}}");
+        s = s[d.len()..].to_string();
+    }
+    for (a, b) in [
+        ("Sigma", "\\Sigma"),
+        ("Pi", "\\Pi"),
+        ("Delta", "\\Delta"),
+        ("Phi", "\\Phi"),
+    ] {
+        if let Some(r) = s.strip_prefix(a) {
+            s = format!("{b}{{}}{r}");
+        }
+    }
+    let sign = if s.contains('+') {
+        "^+"
+    } else if s.contains('-') {
+        "^-"
+    } else {
+        ""
+    };
+    s = s.replace(['+', '-'], "");
+    let primes: String = s.chars().filter(|c| *c == '\'').collect();
+    let s2: String = s.chars().filter(|c| *c != '\'').collect();
+    let letter_end = s2
+        .char_indices()
+        .find(|(_, c)| c.is_ascii_digit() || *c == 'g' || *c == 'u')
+        .map(|(k, _)| k)
+        .unwrap_or(s2.len());
+    let (head, sub) = s2.split_at(letter_end);
+    let sub = if sub.is_empty() {
+        String::new()
+    } else {
+        format!("_{{{sub}}}")
+    };
+    format!("{prefix}\\mathrm{{{head}}}{sub}{primes}{sign}")
+}
+
+fn latex_class(ascii: &str) -> String {
+    let s = ascii
+        .replace("sv", "\\sigma_v")
+        .replace("sh", "\\sigma_h")
+        .replace("sd", "\\sigma_d")
+        .replace("inf", "\\infty");
+    // C3 → C_3 ; S4 → S_4
+    let mut out = String::new();
+    let chars: Vec<char> = s.chars().collect();
+    for (k, c) in chars.iter().enumerate() {
+        out.push(*c);
+        if (*c == 'C' || *c == 'S') && chars.get(k + 1).is_some_and(|d| d.is_ascii_digit()) {
+            out.push('_');
+        }
+    }
+    out
+}
+
+fn latex(g: &PointGroup) -> String {
+    let t = &g.table;
+    let ncol = t.classes.len() + 2;
+    let mut out = String::new();
+    out.push_str(&format!(
+        "\\begin{{tabular}}{{l{}l}}\n\\toprule\n",
+        "c".repeat(ncol - 2)
+    ));
+    let mut h = vec![format!("${}$", latex_label(&t.name))];
+    h.extend(
+        t.classes
+            .iter()
+            .map(|c| format!("${}$", latex_class(&c.ascii))),
+    );
+    h.push("functions".into());
+    out.push_str(&h.join(" & "));
+    out.push_str(" \\\\\n\\midrule\n");
+    for i in 0..t.irreps.len() {
+        let mut r = vec![format!("${}$", latex_label(&t.irreps[i].label))];
+        for c in 0..t.classes.len() {
+            r.push(format!(
+                "${}$",
+                latex_text(&char_text(g, i, c, Notation::Ascii))
+            ));
+        }
+        let f = functions(t, i, true)
+            .iter()
+            .map(|s| {
+                format!(
+                    "${}$",
+                    s.replace("Rx", "R_x")
+                        .replace("Ry", "R_y")
+                        .replace("Rz", "R_z")
+                )
+            })
+            .collect::<Vec<_>>()
+            .join("; ");
+        r.push(f);
+        out.push_str(&r.join(" & "));
+        out.push_str(" \\\\\n");
+    }
+    out.push_str("\\bottomrule\n\\end{tabular}\n");
+    out
+}
+
+fn matrix_json(m: &nalgebra::Matrix3<f64>) -> Value {
+    let clean = |v: f64| if v.abs() < 1e-15 { 0.0 } else { v };
+    json!((0..3)
+        .map(|i| (0..3).map(|j| clean(m[(i, j)])).collect::<Vec<_>>())
+        .collect::<Vec<_>>())
+}
+
+/// The JSON form of a table.
+pub fn to_json(g: &PointGroup) -> Value {
+    let t = &g.table;
+    let classes: Vec<Value> = t
+        .classes
+        .iter()
+        .enumerate()
+        .map(|(c, cl)| {
+            let elements: Vec<Value> = g
+                .ops
+                .iter()
+                .filter(|o| o.class == c)
+                .map(|o| matrix_json(&o.float))
+                .collect();
+            let rep = crate::group::op_matrix(&cl.op)
+                .ok()
+                .map(|m| matrix_json(&crate::group::to_float(&m)));
+            json!({
+                "symbol": cl.ascii,
+                "size": if t.is_linear() && cl.size == 0 { Value::Null } else { json!(cl.size) },
+                "representative": rep,
+                "elements": elements,
+            })
+        })
+        .collect();
+    let irreps: Vec<Value> = t
+        .irreps
+        .iter()
+        .enumerate()
+        .map(|(i, ir)| {
+            let chars: Vec<String> = (0..t.classes.len())
+                .map(|c| char_text(g, i, c, Notation::Ascii))
+                .collect();
+            let floats: Vec<Value> = ir
+                .chars
+                .iter()
+                .map(|v| {
+                    let (re, im) = v.to_c64();
+                    if im.abs() < 1e-12 {
+                        json!(re)
+                    } else {
+                        json!({"re": re, "im": im})
+                    }
+                })
+                .collect();
+            json!({
+                "label": ir.label,
+                "characters": chars,
+                "characters_float": if t.is_linear() { Value::Null } else { json!(floats) },
+                "functions": functions(t, i, true),
+            })
+        })
+        .collect();
+    json!({
+        "group": t.name,
+        "order": t.order,
+        "family": t.family.name(),
+        "orientation": t.orientation,
+        "classes": classes,
+        "irreps": irreps,
+    })
+}
