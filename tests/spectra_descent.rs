@@ -243,3 +243,54 @@ fn descent_errors() {
         Err(SpectraError::NotASubgroup { .. })
     ));
 }
+
+#[test]
+fn cinfv_to_c2v() {
+    // from memory: Herzberg (1945), correlation of C∞v with C2v: Σ+→A1, Σ−→A2, Π→B1+B2.
+    let r = descend_names("Cinfv", "C2v", None, None).unwrap();
+    check(
+        &r,
+        0,
+        &[("Sigma+", "A1"), ("Sigma-", "A2"), ("Pi", "B1 + B2")],
+    );
+}
+
+#[test]
+fn every_correlation_keeps_dimension_and_total_symmetry() {
+    // Structural checks only (no chemistry): restriction keeps the dimension, and the totally
+    // symmetric irrep of G goes to the totally symmetric irrep of H.
+    let subs = [
+        "C1", "Cs", "Ci", "C2", "C3", "C2v", "C3v", "C2h", "D2", "D3", "S4", "T",
+    ];
+    for name in salcdesk::group::names() {
+        let g = load(name).unwrap();
+        if g.is_linear() {
+            continue;
+        }
+        for s in subs {
+            let h = load(s).unwrap();
+            if g.order() % h.order() != 0 {
+                continue;
+            }
+            let r = match descend(&g, &h, None, None) {
+                Ok(r) => r,
+                Err(SpectraError::NotASubgroup { .. }) => continue,
+                Err(e) => panic!("{name} → {s}: {e}"),
+            };
+            for e in &r.embeddings {
+                for c in &e.correlation {
+                    let d: usize = c
+                        .becomes
+                        .terms
+                        .iter()
+                        .map(|t| t.multiplicity as usize * t.dimension)
+                        .sum();
+                    assert_eq!(d, c.dimension, "{name} → {s}: {}", c.irrep);
+                }
+                let first = &e.correlation[0].becomes.terms;
+                assert_eq!(first.len(), 1, "{name} → {s}");
+                assert_eq!(first[0].irrep, h.table.irreps[0].label, "{name} → {s}");
+            }
+        }
+    }
+}
