@@ -193,3 +193,19 @@ fn json_shape() {
     assert_eq!(t2["raman"], true);
     assert_eq!(t2["polarized"], false);
 }
+
+#[test]
+fn unicode_and_loose_linear_labels() {
+    // from memory: Herzberg (1945), CO2: Σg+ + Σu+ + Πu, written three ways.
+    for text in [
+        "Σg⁺ + Σu⁺ + Πu",
+        "Σ+g + Σ+u + Πu",
+        "Sigmag+ + Sigmau+ + Piu",
+    ] {
+        let r = modes_from_text("Dinfh", text).unwrap();
+        assert_eq!(r.gamma, "Sigma+g + Sigma+u + Piu", "{text}");
+    }
+    // D3h labels with Unicode primes and subscripts: Nakamoto, Part A, planar XY3.
+    let r = modes_from_text("D3h", "A₁′ + A₂″ + 2E′").unwrap();
+    assert_eq!(r.gamma, "A1' + 2E' + A2''");
+}

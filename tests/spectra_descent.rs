@@ -294,3 +294,28 @@ fn every_correlation_keeps_dimension_and_total_symmetry() {
         }
     }
 }
+
+#[test]
+fn via_several_classes_selects_one_embedding() {
+    // D4h (Cotton, 3rd ed., D4h table): the C2v whose C2 is the principal C2 and whose
+    // mirrors are the σd planes.
+    let r = descend_names("D4h", "C2v", Some("C2, σd"), None).unwrap();
+    assert_eq!(r.embeddings.len(), 1);
+    let e = &r.embeddings[0];
+    assert!(e.contains.contains(&"C2".to_string()) && e.contains.contains(&"2sd".to_string()));
+}
+
+#[test]
+fn subgroup_types_of_td() {
+    // from memory: Cotton, Chemical Applications of Group Theory, 3rd ed. (descent in
+    // symmetry): the subgroups of Td are T, D2d, C3v, C2v, S4, D2, C3, C2, Cs and C1, each
+    // type once up to conjugacy.
+    let g = load("Td").unwrap();
+    let t = salcdesk::spectra::subgroup_types(&g).unwrap();
+    let mut names: Vec<&str> = t.iter().map(|s| s.name.as_str()).collect();
+    names.sort();
+    let mut want = vec!["C1", "C2", "C2v", "C3", "C3v", "Cs", "D2", "D2d", "S4", "T"];
+    want.sort();
+    assert_eq!(names, want);
+    assert!(t.iter().all(|s| s.embeddings == 1));
+}

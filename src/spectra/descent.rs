@@ -77,7 +77,8 @@ pub struct DescentReport {
 }
 
 /// Correlate G with subgroup type H. `via` names a class of G whose operations the subgroup
-/// must contain (`"sd"`, `"σd"`, `"C2''"`); `gamma` (multiplicities per row of G) adds how each
+/// must contain (`"sd"`, `"σd"`, `"C2''"`), or several separated by commas (`"C2,sd"`), all of
+/// which must be met; `gamma` (multiplicities per row of G) adds how each
 /// fundamental splits and the activity report in H.
 pub fn descend(
     g: &PointGroup,
@@ -176,7 +177,11 @@ fn descend_finite(
     if subs.is_empty() {
         return Err(not_sub(g, h, "no set of its operations forms that group"));
     }
-    let via_classes = via.map(|v| resolve_class(g, v)).transpose()?;
+    // `via` may name several classes, comma-separated: all must be met.
+    let via_classes: Vec<Vec<usize>> = via
+        .map(|v| v.split(',').map(|p| resolve_class(g, p)).collect())
+        .transpose()?
+        .unwrap_or_default();
     let g_reals = real_irreps(g);
     let g_chars: Vec<Character> = g_reals.iter().map(|r| real_character(g, r)).collect();
     let mut embeddings = Vec::new();
@@ -185,10 +190,11 @@ fn descend_finite(
         let Some(h_class_of) = classes_in_subgroup(g, h, k) else {
             continue;
         };
-        if let Some(vc) = &via_classes {
-            if !k.iter().any(|&i| vc.contains(&g.ops[i].class)) {
-                continue;
-            }
+        if !via_classes
+            .iter()
+            .all(|vc| k.iter().any(|&i| vc.contains(&g.ops[i].class)))
+        {
+            continue;
         }
         // For each class of H, the class of G its operations come from.
         let mut link = vec![usize::MAX; h.n_classes()];
@@ -237,7 +243,7 @@ fn descend_finite(
             g,
             h,
             &match via {
-                Some(v) => format!("no such subgroup contains an operation of class '{v}'"),
+                Some(v) => format!("no such subgroup contains operations of class(es) '{v}'"),
                 None => "no orientation of its standard operations fits".to_string(),
             },
         ));
@@ -448,4 +454,40 @@ fn linear_to_linear(g: &PointGroup, h: &PointGroup) -> Result<Vec<CorrelationRow
             })
         })
         .collect()
+}
+
+/// A subgroup type of G and how many inequivalent ways it sits in G.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize)]
+pub struct SubgroupType {
+    pub name: String,
+    pub order: usize,
+    /// Conjugacy classes of such subgroups (ways of embedding).
+    pub embeddings: usize,
+}
+
+/// Every table group that occurs as a proper subgroup of G, with its number of embeddings,
+/// found among G's operations (order, then table order). For the linear groups: the finite
+/// standard subgroups the route through `rep::restrictions` supports, and C∞v in D∞h.
+pub fn subgroup_types(g: &PointGroup) -> Result<Vec<SubgroupType>, SpectraError> {
+    let mut out = Vec::new();
+    for name in crate::group::names() {
+        let h = crate::group::load(name)?;
+        if name == g.name() || (h.is_linear() && !g.is_linear()) {
+            continue;
+        }
+        if !g.is_linear() && (h.order() >= g.order() || g.order() % h.order() != 0) {
+            continue;
+        }
+        match descend(g, &h, None, None) {
+            Ok(r) => out.push(SubgroupType {
+                name: name.to_string(),
+                order: h.order(),
+                embeddings: r.embeddings.len(),
+            }),
+            Err(SpectraError::NotASubgroup { .. }) => {}
+            Err(e) => return Err(e),
+        }
+    }
+    out.sort_by_key(|t| t.order);
+    Ok(out)
 }

@@ -31,13 +31,14 @@ pub use combos::{
     CombinationsReport, Fundamental, LevelKind, ANHARMONIC_NOTE,
 };
 pub use descent::{
-    descend, descend_names, ClassLink, CorrelationRow, DescentReport, Embedding, ModeSplit,
+    descend, descend_names, subgroup_types, ClassLink, CorrelationRow, DescentReport, Embedding,
+    ModeSplit, SubgroupType,
 };
 pub use error::SpectraError;
 pub use lambda::Species;
 pub use real::{
-    is_centrosymmetric, is_totally_symmetric, parse_gamma, real_character, real_index, real_irreps,
-    to_real, to_rows, RealIrrep,
+    ascii_label, is_centrosymmetric, is_totally_symmetric, parse_gamma, real_character, real_index,
+    real_irreps, to_real, to_rows, RealIrrep,
 };
 pub use subgroups::{conjugacy_classes, subgroups_of_order, OpSet};
 pub use symmetry::{combination, overtone, symmetry_of_real, symmetry_of_rows, SymTerm, Symmetry};

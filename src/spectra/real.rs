@@ -113,16 +113,53 @@ pub fn is_centrosymmetric(g: &PointGroup) -> bool {
         .any(|c| matches!(c.op, OpSpec::Inversion))
 }
 
+/// Unicode or loose spellings of a label in the tables' ASCII: `Σg⁺`, `Σ+g`, `Sigmag+` →
+/// `Sigma+g`; `A₁′` → `A1'`; `E″` → `E''`.
+pub fn ascii_label(label: &str) -> String {
+    let mut s = String::new();
+    for c in label.trim().chars() {
+        match c {
+            'Σ' => s.push_str("Sigma"),
+            'Π' => s.push_str("Pi"),
+            'Δ' => s.push_str("Delta"),
+            'Φ' => s.push_str("Phi"),
+            'Γ' => s.push_str("Gamma"),
+            '⁺' => s.push('+'),
+            '⁻' | '−' => s.push('-'),
+            '′' => s.push('\''),
+            '″' => s.push_str("''"),
+            '₀'..='₉' => {
+                s.push(char::from_u32(c as u32 - '₀' as u32 + '0' as u32).unwrap_or(c))
+            }
+            '¹' => s.push('1'),
+            '²' => s.push('2'),
+            _ => s.push(c),
+        }
+    }
+    // Sigma: the sign goes right after the name (`Sigmag+` → `Sigma+g`).
+    if let Some(rest) = s.strip_prefix("Sigma") {
+        let sign: String = rest.chars().filter(|c| *c == '+' || *c == '-').collect();
+        let other: String = rest.chars().filter(|c| *c != '+' && *c != '-').collect();
+        s = format!("Sigma{sign}{other}");
+    }
+    s
+}
+
 /// Index of a real irrep by label: ASCII or Unicode, a pair by its real label (`E`) or by
 /// either row (`1E`).
 pub fn real_index(g: &PointGroup, label: &str) -> Option<usize> {
     let reals = real_irreps(g);
-    let l = label.trim();
+    let ascii = ascii_label(label);
+    let l = ascii.as_str();
     let by_real = |eq: &dyn Fn(&str) -> bool| reals.iter().position(|r| eq(&r.label));
     by_real(&|x| x == l)
         .or_else(|| by_real(&|x| crate::group::display_label(x) == l))
         .or_else(|| {
             let row = g.table.irrep_index(l)?;
+            reals.iter().position(|r| r.rows.contains(&row))
+        })
+        .or_else(|| {
+            let row = g.table.irrep_index(label.trim())?;
             reals.iter().position(|r| r.rows.contains(&row))
         })
         .or_else(|| by_real(&|x| x.eq_ignore_ascii_case(l)))
@@ -139,7 +176,10 @@ pub fn parse_gamma(g: &PointGroup, text: &str) -> Result<Vec<u64>, SpectraError>
     let mut start = 0;
     let mut cur = String::new();
     for (k, &c) in chars.iter().enumerate() {
-        let sigma_sign = c == '+' && (cur.ends_with("Sigma") || cur.ends_with('Σ'));
+        let sigma_sign = c == '+'
+            && ["Sigma", "Sigmag", "Sigmau", "Σ", "Σg", "Σu"]
+                .iter()
+                .any(|s| cur.ends_with(s));
         if c == '+' && !sigma_sign {
             terms.push((start, std::mem::take(&mut cur)));
             start = k + 1;

@@ -1,12 +1,13 @@
 //! Subgroups of a point group found among its own operations, with the multiplication table:
-//! cyclic subgroups first, then one more generator at a time (every point group needs at most
-//! three generators), keeping only subgroups whose order divides the target (Lagrange), and
-//! grouping them into conjugacy classes under the whole group.
+//! cyclic subgroups first, then one more generator at a time until nothing new appears (every
+//! point group needs at most three generators), cached per group; and grouping them into
+//! conjugacy classes under the whole group.
 //!
 //! Owns: subgroup enumeration and conjugacy. Knows nothing of irreps.
 
 use crate::group::PointGroup;
-use std::collections::{BTreeSet, HashSet};
+use std::collections::{BTreeSet, HashMap, HashSet};
+use std::sync::{Arc, Mutex, OnceLock};
 
 /// A subgroup: sorted indices into `g.ops`.
 pub type OpSet = Vec<usize>;
@@ -27,25 +28,36 @@ fn closure(g: &PointGroup, gens: &[usize]) -> OpSet {
     seen.into_iter().collect()
 }
 
-/// All subgroups of `g` of the given order.
-pub fn subgroups_of_order(g: &PointGroup, order: usize) -> Vec<OpSet> {
-    let h = g.order();
-    if order == 0 || h % order != 0 {
-        return Vec::new();
+/// Every subgroup of `g` (computed once per group and cached).
+pub fn all_subgroups(g: &PointGroup) -> Arc<Vec<OpSet>> {
+    static CACHE: OnceLock<Mutex<HashMap<String, Arc<Vec<OpSet>>>>> = OnceLock::new();
+    let cache = CACHE.get_or_init(|| Mutex::new(HashMap::new()));
+    let key = format!("{}/{}", g.name(), g.order());
+    if let Some(v) = cache.lock().ok().and_then(|c| c.get(&key).cloned()) {
+        return v;
     }
+    let v = Arc::new(enumerate(g));
+    if let Ok(mut c) = cache.lock() {
+        c.insert(key, v.clone());
+    }
+    v
+}
+
+fn enumerate(g: &PointGroup) -> Vec<OpSet> {
+    let h = g.order();
     let mut all: HashSet<OpSet> = HashSet::new();
     // (subgroup, its generators)
     let mut level: Vec<(OpSet, Vec<usize>)> = Vec::new();
     for a in 0..h {
         let s = closure(g, &[a]);
-        if order % s.len() == 0 && all.insert(s.clone()) {
+        if all.insert(s.clone()) {
             level.push((s, vec![a]));
         }
     }
     while !level.is_empty() {
         let mut next = Vec::new();
         for (s, gens) in &level {
-            if s.len() == order {
+            if s.len() == h {
                 continue;
             }
             for b in 0..h {
@@ -55,21 +67,29 @@ pub fn subgroups_of_order(g: &PointGroup, order: usize) -> Vec<OpSet> {
                 let mut gb = gens.clone();
                 gb.push(b);
                 let t = closure(g, &gb);
-                if order % t.len() == 0 && all.insert(t.clone()) {
+                if all.insert(t.clone()) {
                     next.push((t, gb));
                 }
             }
         }
         level = next;
     }
-    let mut out: Vec<OpSet> = all.into_iter().filter(|s| s.len() == order).collect();
-    out.sort();
+    let mut out: Vec<OpSet> = all.into_iter().collect();
+    out.sort_by(|a, b| a.len().cmp(&b.len()).then(a.cmp(b)));
     out
 }
 
+/// All subgroups of `g` of the given order.
+pub fn subgroups_of_order(g: &PointGroup, order: usize) -> Vec<OpSet> {
+    all_subgroups(g)
+        .iter()
+        .filter(|s| s.len() == order)
+        .cloned()
+        .collect()
+}
+
 /// x·s·x⁻¹ for every s.
-fn conjugate(g: &PointGroup, s: &OpSet, x: usize) -> OpSet {
-    let xi = g.inverse(x);
+fn conjugate(g: &PointGroup, s: &OpSet, x: usize, xi: usize) -> OpSet {
     let mut t: OpSet = s.iter().map(|&a| g.product(g.product(x, a), xi)).collect();
     t.sort();
     t
@@ -78,13 +98,16 @@ fn conjugate(g: &PointGroup, s: &OpSet, x: usize) -> OpSet {
 /// Split subgroups into conjugacy classes under `g`; each class sorted, classes in order of
 /// their first member.
 pub fn conjugacy_classes(g: &PointGroup, subgroups: &[OpSet]) -> Vec<Vec<OpSet>> {
+    let inverses: Vec<usize> = (0..g.order()).map(|x| g.inverse(x)).collect();
     let mut done: HashSet<OpSet> = HashSet::new();
     let mut out = Vec::new();
     for s in subgroups {
         if done.contains(s) {
             continue;
         }
-        let mut class: Vec<OpSet> = (0..g.order()).map(|x| conjugate(g, s, x)).collect();
+        let mut class: Vec<OpSet> = (0..g.order())
+            .map(|x| conjugate(g, s, x, inverses[x]))
+            .collect();
         class.sort();
         class.dedup();
         for c in &class {
