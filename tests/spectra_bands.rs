@@ -161,3 +161,17 @@ fn listed_fundamental_of_inactive_irrep_is_a_conflict() {
     assert_eq!(r.conflicts.len(), 1);
     assert!(r.bands[0].fundamental_candidates == vec!["T2"]);
 }
+
+#[test]
+fn load_from_file_and_missing_file() {
+    let dir = std::env::temp_dir().join(format!("salcdesk-spectra-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join("ccl4.csv");
+    std::fs::write(&path, CCL4_RAMAN).unwrap();
+    let b = salcdesk::spectra::load_bands(&path).unwrap();
+    assert_eq!(b.len(), 5);
+    std::fs::remove_file(&path).unwrap();
+    let e = salcdesk::spectra::load_bands(&path).unwrap_err();
+    assert_eq!(e.line, 0);
+    let _ = std::fs::remove_dir(&dir);
+}

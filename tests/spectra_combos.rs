@@ -105,3 +105,19 @@ fn unknown_fundamental_irrep_is_an_error() {
     let e = predict_combinations(&g, &bad, CombinationOptions::default()).unwrap_err();
     assert!(e.to_string().contains("fundamental 1"), "{e}");
 }
+
+#[test]
+fn fundamentals_from_text() {
+    // from memory: Herzberg (1945), CH4: ν1 2914 (a1), ν2 1526 (e), ν3 3020 (f2), ν4 1306 (f2).
+    let text = "# CH4\nA1 2914 ν1\nE, 1526, ν2\nT2 3020 ν3; T2 1306 ν4\n";
+    let f = salcdesk::spectra::parse_fundamentals("ch4", text).unwrap();
+    assert_eq!(f.len(), 4);
+    assert_eq!(f[3].irrep, "T2");
+    assert_eq!(f[3].position_cm, Some(1306.0));
+    assert_eq!(f[3].name.as_deref(), Some("ν4"));
+    let g = load("Td").unwrap();
+    let r = predict_combinations(&g, &f, CombinationOptions::default()).unwrap();
+    assert!(r.levels.iter().any(|l| l.label == "ν2 + ν4"));
+    let e = salcdesk::spectra::parse_fundamentals("f", "A1 2914\nE x1526\n").unwrap_err();
+    assert_eq!((e.line, e.field), (2, 2));
+}

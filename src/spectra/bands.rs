@@ -178,3 +178,15 @@ pub fn parse_bands(file: &str, text: &str) -> Result<Vec<Band>, BandFileError> {
     }
     Ok(out)
 }
+
+/// Read a band list from a file; an unreadable file is reported at line 0.
+pub fn load_bands(path: &std::path::Path) -> Result<Vec<Band>, BandFileError> {
+    let file = path.display().to_string();
+    let text = std::fs::read_to_string(path).map_err(|e| BandFileError {
+        file: file.clone(),
+        line: 0,
+        field: 0,
+        message: e.to_string(),
+    })?;
+    parse_bands(&file, &text)
+}

@@ -116,14 +116,14 @@ pub fn check_bands(
     let table = activity_table(g);
     let centro = is_centrosymmetric(g);
     let resolved = resolve(g, fundamentals)?;
+    // Names follow the user's list (ν1 = first listed), also for those without a position.
     let positioned: Vec<Fundamental> = fundamentals
         .iter()
-        .filter(|f| f.position_cm.is_some())
-        .cloned()
-        .enumerate()
-        .map(|(k, mut f)| {
-            f.name.get_or_insert_with(|| format!("ν{}", k + 1));
-            f
+        .zip(&resolved)
+        .filter(|(f, _)| f.position_cm.is_some())
+        .map(|(f, (_, name))| Fundamental {
+            name: Some(name.clone()),
+            ..f.clone()
         })
         .collect();
     let levels = predict_combinations(g, &positioned, CombinationOptions::default())?.levels;

@@ -193,3 +193,53 @@ pub fn predict_combinations(
         note: ANHARMONIC_NOTE.to_string(),
     })
 }
+
+/// An error in a list of fundamentals, with its line and field.
+#[derive(Debug, Clone, PartialEq, Eq, thiserror::Error)]
+#[error("{file}:{line}: field {field}: {message}")]
+pub struct FundamentalsError {
+    pub file: String,
+    pub line: usize,
+    pub field: usize,
+    pub message: String,
+}
+
+/// Read fundamentals, one per line or separated by `;`: `irrep [position] [name]`, e.g.
+/// `A1 459 ν1`, `T2, 314`; `#` starts a comment. Irreps are checked later against the group
+/// (see [`predict_combinations`]); here only the shape of each line.
+pub fn parse_fundamentals(file: &str, text: &str) -> Result<Vec<Fundamental>, FundamentalsError> {
+    let mut out = Vec::new();
+    for (k, raw) in text.lines().enumerate() {
+        let content = raw.split('#').next().unwrap_or("");
+        for entry in content.split(';') {
+            let fields: Vec<&str> = entry
+                .split([',', '\t', ' '])
+                .map(str::trim)
+                .filter(|s| !s.is_empty())
+                .collect();
+            let Some(irrep) = fields.first() else {
+                continue;
+            };
+            let position_cm = match fields.get(1) {
+                None => None,
+                Some(p) => match p.parse::<f64>() {
+                    Ok(v) if v.is_finite() && v > 0.0 => Some(v),
+                    _ => {
+                        return Err(FundamentalsError {
+                            file: file.to_string(),
+                            line: k + 1,
+                            field: 2,
+                            message: format!("'{p}' is not a positive position in cm⁻¹"),
+                        })
+                    }
+                },
+            };
+            out.push(Fundamental {
+                irrep: irrep.to_string(),
+                position_cm,
+                name: (fields.len() > 2).then(|| fields[2..].join(" ")),
+            });
+        }
+    }
+    Ok(out)
+}

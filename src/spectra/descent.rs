@@ -97,20 +97,18 @@ pub fn descend(
     if let Some(rows) = gamma {
         let real = to_real(g, rows)?;
         let reals = real_irreps(g);
+        let activity = super::activity::activity_table(g);
+        let h_reals = real_irreps(h);
         for e in &mut report.embeddings {
             let mut total = vec![0u64; h.table.irreps.len()];
-            for ((r, row), n) in reals.iter().zip(&e.correlation).zip(&real) {
+            for (((r, row), n), act) in reals.iter().zip(&e.correlation).zip(&real).zip(&activity) {
                 if *n == 0 {
                     continue;
                 }
-                let act = super::activity::activity_table(g)
-                    .into_iter()
-                    .find(|a| a.irrep == r.label)
-                    .ok_or_else(|| internal(g, "activity row missing"))?;
                 for t in &row.becomes.terms {
                     let hr = super::real::real_index(h, &t.irrep)
                         .ok_or_else(|| internal(g, "subgroup label not found"))?;
-                    for &i in &real_irreps(h)[hr].rows {
+                    for &i in &h_reals[hr].rows {
                         total[i] += n * t.multiplicity;
                     }
                 }

@@ -22,13 +22,14 @@ pub use activity::{
     activity_table, modes_from_text, modes_report, IrrepActivity, ModeLine, ModesReport,
     MUTUAL_EXCLUSION,
 };
-pub use bands::{parse_bands, Band, BandFileError, Intensity, Polarization, Technique};
+pub use bands::{load_bands, parse_bands, Band, BandFileError, Intensity, Polarization, Technique};
 pub use check::{
     check_bands, BandCheck, BandVerdict, CheckOptions, Conflict, CountCheck, LevelMatch,
 };
 pub use combos::{
-    fundamentals_from_gamma, predict_combinations, CombinationBand, CombinationOptions,
-    CombinationsReport, Fundamental, LevelKind, ANHARMONIC_NOTE,
+    fundamentals_from_gamma, parse_fundamentals, predict_combinations, CombinationBand,
+    CombinationOptions, CombinationsReport, Fundamental, FundamentalsError, LevelKind,
+    ANHARMONIC_NOTE,
 };
 pub use descent::{
     descend, descend_names, subgroup_types, ClassLink, CorrelationRow, DescentReport, Embedding,
