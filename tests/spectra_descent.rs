@@ -319,3 +319,20 @@ fn subgroup_types_of_td() {
     assert_eq!(names, want);
     assert!(t.iter().all(|s| s.embeddings == 1));
 }
+
+#[test]
+fn linear_group_to_itself_and_not_upwards() {
+    let r = descend_names("Dinfh", "Dinfh", None, None).unwrap();
+    assert!(r.embeddings[0]
+        .correlation
+        .iter()
+        .all(|c| c.becomes.text == c.irrep));
+    assert!(matches!(
+        descend_names("Cinfv", "Dinfh", None, None),
+        Err(SpectraError::NotASubgroup { .. })
+    ));
+    assert!(matches!(
+        descend_names("Cinfv", "C2h", None, None),
+        Err(SpectraError::NotASubgroup { .. })
+    ));
+}

@@ -395,8 +395,8 @@ fn descend_linear(
     })
 }
 
-/// D∞h → C∞v: C∞v's classes (E, C∞^φ, σv) are classes of D∞h; compare characters exactly at
-/// several angles.
+/// D∞h → C∞v: C∞v's classes (E, C∞^φ, σv) are classes of D∞h (matched by kind of operation);
+/// compare characters exactly at several angles. (Also G → G.)
 fn linear_to_linear(g: &PointGroup, h: &PointGroup) -> Result<Vec<CorrelationRow>, SpectraError> {
     let kind = |o: &OpSpec| match o {
         OpSpec::Identity => 0,
@@ -404,7 +404,12 @@ fn linear_to_linear(g: &PointGroup, h: &PointGroup) -> Result<Vec<CorrelationRow
             turn: Turn::Phi, ..
         } => 1,
         OpSpec::Reflection { .. } => 2,
-        _ => 9,
+        OpSpec::Inversion => 3,
+        OpSpec::Improper {
+            turn: Turn::Phi, ..
+        } => 4,
+        OpSpec::Rotation { .. } => 5,
+        OpSpec::Improper { .. } => 6,
     };
     let link: Vec<usize> = h
         .table
@@ -414,7 +419,7 @@ fn linear_to_linear(g: &PointGroup, h: &PointGroup) -> Result<Vec<CorrelationRow
             g.table
                 .classes
                 .iter()
-                .position(|gc| kind(&gc.op) == kind(&hc.op) && kind(&hc.op) < 9)
+                .position(|gc| kind(&gc.op) == kind(&hc.op))
         })
         .collect::<Option<_>>()
         .ok_or_else(|| not_sub(g, h, "its classes are not classes of the group"))?;

@@ -4,6 +4,15 @@
 //!
 //! Owns the spectroscopic rules and their report structures (serde-serializable). Knows no
 //! terminal: text rendering helpers in [`render`] return strings.
+//!
+//! Entry points for the faces:
+//! - modes: [`modes_from_text`] or [`parse_gamma`] + [`modes_report`] (Γ per table row, as
+//!   `rep::decompose` gives it) → [`ModesReport`]; [`render::modes_markdown`].
+//! - combos: [`fundamentals_from_gamma`] or [`parse_fundamentals`] + [`predict_combinations`]
+//!   → [`CombinationsReport`]; single levels with [`combination`] and [`overtone`].
+//! - bands: [`load_bands`] / [`parse_bands`] + [`check_bands`] → [`BandCheck`].
+//! - descend: [`descend_names`] / [`descend`] → [`DescentReport`]; [`subgroup_types`] lists
+//!   what a group can descend to.
 
 mod activity;
 mod bands;
