@@ -116,6 +116,20 @@ fn ccl4_raman_check() {
     // Default tolerance (max(1 %, 10 cm⁻¹) = 10 at 773): 762 is 11 away, not offered.
     let r = check_bands(&g, &rows, &bands, &fundamentals, CheckOptions::default()).unwrap();
     assert!(r.bands[3].level_candidates.is_empty());
+    // Once ν3 (f2, 776 cm⁻¹ — Nakamoto, Part A, CCl4, from memory) is also listed, every E and
+    // T2 fundamental has a place: the doublet is no longer offered as a fundamental.
+    let mut all = fundamentals.clone();
+    all.push(fundamental("T2", 776.0, "ν3"));
+    let r = check_bands(&g, &rows, &bands, &all, CheckOptions::default()).unwrap();
+    assert!(
+        r.bands[4].remarks[0].starts_with("symmetry also allows"),
+        "{:?}",
+        r.bands[4]
+    );
+    assert!(!r.bands[4]
+        .remarks
+        .iter()
+        .any(|m| m.starts_with("could be a fundamental")));
 }
 
 // from memory: Herzberg, Infrared and Raman Spectra (1945), N2O: 589 (IR), 1285 (IR and

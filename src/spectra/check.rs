@@ -220,10 +220,28 @@ pub fn check_bands(
                 }
             }
             level_candidates.sort_by(|a, b| a.deviation_cm.abs().total_cmp(&b.deviation_cm.abs()));
-            if !fundamental_candidates.is_empty() {
+            // Irreps whose fundamentals the user has all placed at other positions.
+            let (free, taken): (Vec<&String>, Vec<&String>) =
+                fundamental_candidates.iter().partition(|label| {
+                    let i = table.iter().position(|a| &a.irrep == *label).unwrap_or(0);
+                    let listed = resolved
+                        .iter()
+                        .zip(fundamentals)
+                        .filter(|((j, _), f)| *j == i && f.position_cm.is_some())
+                        .count() as u64;
+                    listed < real[i]
+                });
+            let any_free = !free.is_empty();
+            if any_free {
+                let free: Vec<&str> = free.iter().map(|s| s.as_str()).collect();
+                remarks.push(format!("could be a fundamental of {}", free.join(" or ")));
+            }
+            if !taken.is_empty() {
+                let taken: Vec<&str> = taken.iter().map(|s| s.as_str()).collect();
                 remarks.push(format!(
-                    "could be a fundamental of {}",
-                    fundamental_candidates.join(" or ")
+                    "symmetry also allows a fundamental of {}, but all of those are listed at \
+                     other positions",
+                    taken.join(" or ")
                 ));
             }
             if !level_candidates.is_empty() {
@@ -238,7 +256,7 @@ pub fn check_bands(
                     .collect();
                 remarks.push(format!("could be {}", list.join(" or ")));
             }
-            if fundamental_candidates.is_empty() && level_candidates.is_empty() {
+            if !any_free && level_candidates.is_empty() {
                 remarks.push(format!(
                     "not explained by a fundamental of Γ{} within ±{tol:.0} cm⁻¹: could be an \
                      impurity, a lattice or site effect, or a level not considered",
