@@ -7,9 +7,11 @@
 
 pub mod cli;
 pub mod exact;
+pub mod geom;
 pub mod group;
 pub mod rep;
 pub mod report;
 #[doc(hidden)]
 pub mod robustness;
 pub mod spectra;
+pub mod survey;

@@ -2,6 +2,7 @@
 //!
 //! Exit codes: 0 success, 2 bad input (message on stderr), 1 other failures.
 
+mod geometry_cmds;
 mod table_cmds;
 
 use clap::{Parser, Subcommand};
@@ -59,6 +60,12 @@ pub enum Command {
     Product(table_cmds::ProductArgs),
     /// Check a table file against every rule the shipped tables obey.
     CheckTable(table_cmds::CheckTableArgs),
+    /// Survey molecules from XYZ files: group, orientation, Γ3N, Γvib, bond and angle sets.
+    Analyze(geometry_cmds::AnalyzeArgs),
+    /// Point group of an XYZ file, and what looser tolerances would give.
+    Detect(geometry_cmds::DetectArgs),
+    /// Idealize a geometry to exact symmetry and write it as XYZ.
+    Symmetrize(geometry_cmds::SymmetrizeArgs),
 }
 
 /// Run a parsed command line (everything but the terminal workspace).
@@ -70,8 +77,35 @@ pub fn run(cli: &Cli) -> CliResult {
         Some(Command::Reduce(a)) => table_cmds::reduce(a, ascii),
         Some(Command::Product(a)) => table_cmds::product(a, ascii),
         Some(Command::CheckTable(a)) => table_cmds::check_table(a),
+        Some(Command::Analyze(a)) => geometry_cmds::analyze(a, ascii),
+        Some(Command::Detect(a)) => geometry_cmds::detect(a, ascii),
+        Some(Command::Symmetrize(a)) => geometry_cmds::symmetrize(a, ascii),
         None => Ok(()),
     }
+}
+
+/// Write a file atomically: a temporary file in the same folder, fsync, rename.
+pub fn write_atomic(path: &std::path::Path, bytes: &[u8]) -> std::io::Result<()> {
+    use std::io::Write;
+    let dir = path
+        .parent()
+        .filter(|d| !d.as_os_str().is_empty())
+        .unwrap_or(std::path::Path::new("."));
+    let name = path
+        .file_name()
+        .map(|n| n.to_string_lossy().into_owned())
+        .unwrap_or_default();
+    let tmp = dir.join(format!(".{name}.{}.salcdesk-tmp", std::process::id()));
+    {
+        let mut f = std::fs::File::create(&tmp)?;
+        f.write_all(bytes)?;
+        f.sync_all()?;
+    }
+    std::fs::rename(&tmp, path)?;
+    if let Ok(d) = std::fs::File::open(dir) {
+        let _ = d.sync_all();
+    }
+    Ok(())
 }
 
 /// Parse `--format` values.
