@@ -13,4 +13,5 @@ pub mod rep;
 pub mod report;
 #[doc(hidden)]
 pub mod robustness;
+pub mod spectra;
 pub mod survey;
