@@ -54,7 +54,7 @@ pub struct GeometryArgs {
 }
 
 impl GeometryArgs {
-    fn xyz_options(&self) -> Result<XyzOptions, CliError> {
+    pub fn xyz_options(&self) -> Result<XyzOptions, CliError> {
         let frame = match self.frame.to_ascii_lowercase().as_str() {
             "first" => FrameSelect::First,
             "last" => FrameSelect::Last,
@@ -75,7 +75,7 @@ impl GeometryArgs {
             max_atoms: self.max_atoms,
         })
     }
-    fn survey_options(&self) -> SurveyOptions {
+    pub fn survey_options(&self) -> SurveyOptions {
         SurveyOptions {
             tolerance: self.tol,
             bond_factor: self.bond_factor,

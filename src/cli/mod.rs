@@ -3,6 +3,7 @@
 //! Exit codes: 0 success, 2 bad input (message on stderr), 1 other failures.
 
 mod geometry_cmds;
+mod spectra_cmds;
 mod table_cmds;
 
 use clap::{Parser, Subcommand};
@@ -66,6 +67,14 @@ pub enum Command {
     Detect(geometry_cmds::DetectArgs),
     /// Idealize a geometry to exact symmetry and write it as XYZ.
     Symmetrize(geometry_cmds::SymmetrizeArgs),
+    /// IR/Raman activity, polarization and band counts of the fundamentals.
+    Modes(spectra_cmds::ModesArgs),
+    /// Overtones and binary combinations: symmetry, activity, harmonic positions.
+    Combos(spectra_cmds::CombosArgs),
+    /// Hold an observed band list against the prediction.
+    Bands(spectra_cmds::BandsArgs),
+    /// Descent in symmetry: correlate a group's irreps with a subgroup's.
+    Descend(spectra_cmds::DescendArgs),
 }
 
 /// Run a parsed command line (everything but the terminal workspace).
@@ -80,6 +89,10 @@ pub fn run(cli: &Cli) -> CliResult {
         Some(Command::Analyze(a)) => geometry_cmds::analyze(a, ascii),
         Some(Command::Detect(a)) => geometry_cmds::detect(a, ascii),
         Some(Command::Symmetrize(a)) => geometry_cmds::symmetrize(a, ascii),
+        Some(Command::Modes(a)) => spectra_cmds::modes(a, ascii),
+        Some(Command::Combos(a)) => spectra_cmds::combos(a, ascii),
+        Some(Command::Bands(a)) => spectra_cmds::bands(a, ascii),
+        Some(Command::Descend(a)) => spectra_cmds::descend(a, ascii),
         None => Ok(()),
     }
 }
