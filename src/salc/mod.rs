@@ -1,0 +1,19 @@
+//! Symmetry-adapted linear combinations: projection and transfer operators, exact orthonormal
+//! SALCs with degenerate partners, symmetry coordinates, SALCs of internal coordinates with
+//! their redundancies, ligand group orbitals, and their display.
+//!
+//! Owns everything from a [`crate::basis::Basis`] to printed SALCs. Refuses to know how a basis
+//! acts (that is `basis`) or how a report is laid out beyond one SALC's text.
+
+mod build;
+mod display;
+mod irreps;
+mod project;
+
+pub use build::{
+    display_form, real_multiplicities, salcs, salcs_with_seeds, Role, Salc, SalcError, SalcSet,
+    Seed,
+};
+pub use display::{coefficient_strings, combination, member_name, norm_factor, salc_text};
+pub use irreps::{real_irreps, IrrepError, Matrix, MatrixSource, RealIrrep};
+pub use project::{inverses, partner_one_images, transfer, worked_projection, Worked, WorkedLine};
