@@ -12,3 +12,5 @@ pub mod group;
 pub mod rep;
 pub mod report;
 pub mod salc;
+#[doc(hidden)]
+pub mod robustness;
