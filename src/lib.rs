@@ -8,6 +8,7 @@
 pub mod basis;
 pub mod cli;
 pub mod exact;
+pub mod geom;
 pub mod group;
 pub mod rep;
 pub mod report;
