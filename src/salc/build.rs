@@ -73,7 +73,7 @@ pub struct SalcSet {
 pub struct Seed {
     pub vector: Vec<Cyclo>,
     pub role: Role,
-    /// Real irreps (indices) the seed has a part in.
+    /// Real irreps (indices) the seed's family has a part in, each listed once per copy.
     pub irreps: Vec<usize>,
 }
 
@@ -198,8 +198,11 @@ fn partner_ones(
         found.push((v, role));
     };
     for seed in seeds.iter().filter(|s| s.irreps.contains(&x)) {
-        if found.len() == n {
-            break;
+        // a seed family (e.g. Tx, Ty, Tz) holds as many copies as it lists the irrep
+        let allowed = seed.irreps.iter().filter(|&&i| i == x).count();
+        let have = found.iter().filter(|(_, r)| *r == seed.role).count();
+        if found.len() == n || have >= allowed {
+            continue;
         }
         let v = transfer(b, ir, inv, 0, 0, &seed.vector);
         offer(v, seed.role, &mut found);

@@ -6,6 +6,7 @@
 //! acts (that is `basis`) or how a report is laid out beyond one SALC's text.
 
 mod build;
+mod coords;
 mod display;
 mod irreps;
 mod project;
@@ -13,6 +14,10 @@ mod project;
 pub use build::{
     display_form, real_multiplicities, salcs, salcs_with_seeds, Role, Salc, SalcError, SalcSet,
     Seed,
+};
+pub use coords::{
+    central_matches, exact_positions, internal_coordinates, nearby_fraction, symmetry_coordinates,
+    Matching,
 };
 pub use display::{coefficient_strings, combination, member_name, norm_factor, salc_text};
 pub use irreps::{real_irreps, IrrepError, Matrix, MatrixSource, RealIrrep};
