@@ -2,6 +2,7 @@
 //!
 //! Exit codes: 0 success, 2 bad input (message on stderr), 1 other failures.
 
+mod molecule_cmds;
 mod table_cmds;
 
 use clap::{Parser, Subcommand};
@@ -59,6 +60,8 @@ pub enum Command {
     Product(table_cmds::ProductArgs),
     /// Check a table file against every rule the shipped tables obey.
     CheckTable(table_cmds::CheckTableArgs),
+    /// SALCs of a basis on a molecule (XYZ file) or a what-if molecule (group + --sites).
+    Salc(molecule_cmds::SalcArgs),
 }
 
 /// Run a parsed command line (everything but the terminal workspace).
@@ -70,6 +73,7 @@ pub fn run(cli: &Cli) -> CliResult {
         Some(Command::Reduce(a)) => table_cmds::reduce(a, ascii),
         Some(Command::Product(a)) => table_cmds::product(a, ascii),
         Some(Command::CheckTable(a)) => table_cmds::check_table(a),
+        Some(Command::Salc(a)) => molecule_cmds::salc(a, ascii),
         None => Ok(()),
     }
 }

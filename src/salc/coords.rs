@@ -244,7 +244,7 @@ pub fn central_matches(set: &SalcSet) -> Vec<Matching> {
             if named.len() as u64 == count * ir.dim as u64 {
                 central.extend(named);
             } else if count == 1 {
-                central.push(format!("{} ({}-dim part)", sh.letter, ir.dim));
+                central.push(format!("{} (one set)", sh.letter));
             } else {
                 central.push(format!("{count}×{}", sh.letter));
             }

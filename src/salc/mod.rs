@@ -10,6 +10,7 @@ mod coords;
 mod display;
 mod irreps;
 mod project;
+mod render;
 
 pub use build::{
     display_form, real_multiplicities, salcs, salcs_with_seeds, Role, Salc, SalcError, SalcSet,
@@ -22,3 +23,4 @@ pub use coords::{
 pub use display::{coefficient_strings, combination, member_name, norm_factor, salc_text};
 pub use irreps::{real_irreps, IrrepError, Matrix, MatrixSource, RealIrrep};
 pub use project::{inverses, partner_one_images, transfer, worked_projection, Worked, WorkedLine};
+pub use render::{render, View};
