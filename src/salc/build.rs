@@ -177,10 +177,16 @@ fn partner_ones(
     n: usize,
 ) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
     let mut found: Vec<(Vec<Cyclo>, Role)> = Vec::new();
-    let mut norms: Vec<Cyclo> = Vec::new();
+    // Everything new vectors must be orthogonal to. For a complex pair (¹E + ²E taken as one
+    // real irrep) the commutant is C, not R: P₁₁ is the identity on the whole isotypic part,
+    // any vector u there is a first partner, and u must be orthogonal to both partners of the
+    // copies already found.
+    let mut ortho: Vec<(Vec<Cyclo>, Cyclo)> = Vec::new();
+    let complex_type = ir.pair.is_some();
+    let recipe = PartnerRecipe::new(ir);
     let mut offer = |v: Vec<Cyclo>, role: Role, found: &mut Vec<(Vec<Cyclo>, Role)>| {
         let mut v = v;
-        for ((c, _), nc) in found.iter().zip(&norms) {
+        for (c, nc) in &ortho {
             let f = &dot(&v, c) / nc;
             if !f.is_zero() {
                 for (vi, ci) in v.iter_mut().zip(c) {
@@ -194,7 +200,13 @@ fn partner_ones(
             return;
         }
         let v = tidy(v);
-        norms.push(dot(&v, &v));
+        if complex_type {
+            for p in recipe.partners(b, v.clone()).into_iter().skip(1) {
+                let n = dot(&p, &p);
+                ortho.push((p, n));
+            }
+        }
+        ortho.push((v.clone(), dot(&v, &v)));
         found.push((v, role));
     };
     for seed in seeds.iter().filter(|s| s.irreps.contains(&x)) {
