@@ -8,6 +8,7 @@
 mod build;
 mod coords;
 mod display;
+mod float;
 mod irreps;
 mod project;
 mod render;
@@ -21,6 +22,7 @@ pub use coords::{
     Matching,
 };
 pub use display::{coefficient_strings, combination, member_name, norm_factor, salc_text};
+pub use float::float_salcs;
 pub use irreps::{real_irreps, IrrepError, Matrix, MatrixSource, RealIrrep};
 pub use project::{inverses, partner_one_images, transfer, worked_projection, Worked, WorkedLine};
 pub use render::{render, View};
