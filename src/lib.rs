@@ -5,6 +5,7 @@
 //! point-group detection ([`geom`]). The command line and the terminal workspace are thin
 //! faces over it.
 
+pub mod basis;
 pub mod cli;
 pub mod exact;
 pub mod geom;
@@ -13,5 +14,6 @@ pub mod rep;
 pub mod report;
 #[doc(hidden)]
 pub mod robustness;
+pub mod salc;
 pub mod spectra;
 pub mod survey;

@@ -3,6 +3,7 @@
 //! Exit codes: 0 success, 2 bad input (message on stderr), 1 other failures.
 
 mod geometry_cmds;
+mod molecule_cmds;
 mod spectra_cmds;
 mod table_cmds;
 
@@ -75,6 +76,8 @@ pub enum Command {
     Bands(spectra_cmds::BandsArgs),
     /// Descent in symmetry: correlate a group's irreps with a subgroup's.
     Descend(spectra_cmds::DescendArgs),
+    /// SALCs of a basis on a molecule (XYZ file) or a what-if molecule (group + --sites).
+    Salc(molecule_cmds::SalcArgs),
 }
 
 /// Run a parsed command line (everything but the terminal workspace).
@@ -93,6 +96,7 @@ pub fn run(cli: &Cli) -> CliResult {
         Some(Command::Combos(a)) => spectra_cmds::combos(a, ascii),
         Some(Command::Bands(a)) => spectra_cmds::bands(a, ascii),
         Some(Command::Descend(a)) => spectra_cmds::descend(a, ascii),
+        Some(Command::Salc(a)) => molecule_cmds::salc(a, ascii),
         None => Ok(()),
     }
 }
