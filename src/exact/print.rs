@@ -19,6 +19,27 @@ pub fn format(x: &Cyclo, nt: Notation) -> String {
     if let Some(q) = x.to_rational() {
         return format_rational(&q, nt);
     }
+    // Finding the nicest form costs a few linear solves; tables and SALC lists print the same
+    // few values many times, so irrational results are remembered (bounded).
+    use std::collections::HashMap;
+    use std::sync::{Mutex, OnceLock};
+    type Key = (u32, Vec<BigRational>, bool);
+    static MEMO: OnceLock<Mutex<HashMap<Key, String>>> = OnceLock::new();
+    let memo = MEMO.get_or_init(|| Mutex::new(HashMap::new()));
+    let key = (x.field_order(), x.coefficients(), nt == Notation::Ascii);
+    if let Some(s) = memo.lock().expect("print memo").get(&key) {
+        return s.clone();
+    }
+    let s = format_irrational(x, nt);
+    let mut m = memo.lock().expect("print memo");
+    if m.len() > 20_000 {
+        m.clear();
+    }
+    m.insert(key, s.clone());
+    s
+}
+
+fn format_irrational(x: &Cyclo, nt: Notation) -> String {
     let x = x.minimal_field();
     if x.is_real() {
         return format_real(&x, nt);
@@ -141,7 +162,7 @@ fn format_real(x: &Cyclo, nt: Notation) -> String {
     let ds: Vec<u32> = (2..=210)
         .filter(|d| squarefree(*d) && n_even % conductor(*d) == 0)
         .collect();
-    let root = |d: u32| sqrt_rational(&BigRational::from_integer(BigInt::from(d))).ok();
+    let root = cached_root;
     // 1 and √d.
     for &d in &ds {
         let Some(r) = root(d) else { continue };
@@ -183,6 +204,20 @@ fn format_real(x: &Cyclo, nt: Notation) -> String {
     }
     // Should not happen for a real cyclotomic number; fall back to the decimal value.
     decimal(x)
+}
+
+/// √d for small squarefree d, computed once per process (printing asks for them often).
+fn cached_root(d: u32) -> Option<Cyclo> {
+    use std::collections::HashMap;
+    use std::sync::{Mutex, OnceLock};
+    static ROOTS: OnceLock<Mutex<HashMap<u32, Option<Cyclo>>>> = OnceLock::new();
+    let cache = ROOTS.get_or_init(|| Mutex::new(HashMap::new()));
+    if let Some(r) = cache.lock().expect("root cache").get(&d) {
+        return r.clone();
+    }
+    let r = sqrt_rational(&BigRational::from_integer(BigInt::from(d))).ok();
+    cache.lock().expect("root cache").insert(d, r.clone());
+    r
 }
 
 /// Rational coordinates of x in the given (independent) basis, if x lies in its span.

@@ -124,6 +124,28 @@ pub fn sqrt(x: &Cyclo) -> Result<Cyclo, SqrtError> {
     if !x.is_real() || x.re_f64() < 0.0 {
         return Err(SqrtError::NotCyclotomic(format!("{x:?}")));
     }
+    // The search below is costly and callers ask for the same few roots again and again
+    // (norms of SALCs), so results are remembered per process.
+    let key = (x.field_order(), x.coefficients());
+    if let Some(r) = irrational_cache().lock().expect("sqrt cache").get(&key) {
+        return r.clone();
+    }
+    let r = search_sqrt(x);
+    irrational_cache()
+        .lock()
+        .expect("sqrt cache")
+        .insert(key, r.clone());
+    r
+}
+
+type SqrtCache = std::collections::HashMap<(u32, Vec<BigRational>), Result<Cyclo, SqrtError>>;
+
+fn irrational_cache() -> &'static std::sync::Mutex<SqrtCache> {
+    static CACHE: std::sync::OnceLock<std::sync::Mutex<SqrtCache>> = std::sync::OnceLock::new();
+    CACHE.get_or_init(|| std::sync::Mutex::new(SqrtCache::new()))
+}
+
+fn search_sqrt(x: &Cyclo) -> Result<Cyclo, SqrtError> {
     let n = x.field_order();
     for extra in [1u32, 2, 4, 8, 16, 3, 6, 12, 24, 5, 10, 20, 40] {
         let m = lcm(n, extra);

@@ -292,28 +292,128 @@ pub fn act(r: &Mat3, f: &Poly, axial: bool) -> Poly {
 /// The matrix D(R) of R on the tuple's span: R·fₖ = Σⱼ D[j][k] fⱼ; `None` if the span is not
 /// invariant under R (a wrong table entry).
 pub fn tuple_matrix(r: &Mat3, t: &FunctionTuple) -> Option<Vec<Vec<Cyclo>>> {
-    let keys: Vec<[u8; 3]> = {
-        let mut k: Vec<[u8; 3]> = t.parts.iter().flat_map(|p| p.keys().copied()).collect();
-        let images: Vec<Poly> = t.parts.iter().map(|p| act(r, p, t.axial)).collect();
-        k.extend(images.iter().flat_map(|p| p.keys().copied()));
-        k.sort();
-        k.dedup();
-        k
-    };
-    let coords = |p: &Poly| -> Vec<Cyclo> {
-        keys.iter()
-            .map(|k| p.get(k).cloned().unwrap_or_else(Cyclo::zero))
-            .collect()
-    };
-    let basis: Vec<Vec<Cyclo>> = t.parts.iter().map(coords).collect();
-    let d = t.parts.len();
-    let mut m = vec![vec![Cyclo::zero(); d]; d];
-    for (k, f) in t.parts.iter().enumerate() {
-        let img = act(r, f, t.axial);
-        let sol = solve_field(&basis, &coords(&img))?;
-        for j in 0..d {
-            m[j][k] = sol[j].clone();
+    TupleSolver::new(t)?.matrix(r)
+}
+
+/// The matrices of every operation on a tuple (one set-up, then cheap per operation).
+pub fn tuple_matrices<'a>(
+    ops: impl Iterator<Item = &'a Mat3>,
+    t: &FunctionTuple,
+) -> Option<Vec<Vec<Vec<Cyclo>>>> {
+    let solver = TupleSolver::new(t)?;
+    ops.map(|r| solver.matrix(r)).collect()
+}
+
+/// Reads coordinates in a tuple's basis from d monomials where the parts are independent,
+/// then checks the whole image, so a span that is not invariant is still caught.
+struct TupleSolver<'a> {
+    t: &'a FunctionTuple,
+    /// The monomials used as coordinates.
+    pivots: Vec<[u8; 3]>,
+    /// Inverse of the d×d matrix parts[k][pivots[j]] (row j, column k).
+    inverse: Vec<Vec<Cyclo>>,
+}
+
+impl<'a> TupleSolver<'a> {
+    fn new(t: &'a FunctionTuple) -> Option<Self> {
+        let d = t.parts.len();
+        let mut keys: Vec<[u8; 3]> = t.parts.iter().flat_map(|p| p.keys().copied()).collect();
+        keys.sort();
+        keys.dedup();
+        // Greedy choice of d monomials giving an invertible square block.
+        let coords = |k: &[u8; 3]| -> Vec<Cyclo> {
+            t.parts
+                .iter()
+                .map(|p| p.get(k).cloned().unwrap_or_else(Cyclo::zero))
+                .collect()
+        };
+        let mut pivots: Vec<[u8; 3]> = Vec::new();
+        let mut rows: Vec<Vec<Cyclo>> = Vec::new();
+        for k in &keys {
+            let row = coords(k);
+            let mut trial = rows.clone();
+            trial.push(row.clone());
+            if rank(&trial) == trial.len() {
+                rows.push(row);
+                pivots.push(*k);
+                if pivots.len() == d {
+                    break;
+                }
+            }
         }
+        if pivots.len() != d {
+            return None;
+        }
+        // Invert the block by solving for each unit vector.
+        let cols: Vec<Vec<Cyclo>> = (0..d)
+            .map(|k| rows.iter().map(|r| r[k].clone()).collect())
+            .collect();
+        let mut inverse = vec![vec![Cyclo::zero(); d]; d];
+        for j in 0..d {
+            let e: Vec<Cyclo> = (0..d).map(|i| Cyclo::from_int((i == j) as i64)).collect();
+            let sol = solve_field(&cols, &e)?;
+            for k in 0..d {
+                inverse[k][j] = sol[k].clone();
+            }
+        }
+        Some(TupleSolver { t, pivots, inverse })
     }
-    Some(m)
+
+    fn matrix(&self, r: &Mat3) -> Option<Vec<Vec<Cyclo>>> {
+        let d = self.t.parts.len();
+        let mut m = vec![vec![Cyclo::zero(); d]; d];
+        for (k, f) in self.t.parts.iter().enumerate() {
+            let img = act(r, f, self.t.axial);
+            let b: Vec<Cyclo> = self
+                .pivots
+                .iter()
+                .map(|p| img.get(p).cloned().unwrap_or_else(Cyclo::zero))
+                .collect();
+            for j in 0..d {
+                let v: Cyclo = (0..d)
+                    .filter(|&i| !b[i].is_zero() && !self.inverse[j][i].is_zero())
+                    .map(|i| &self.inverse[j][i] * &b[i])
+                    .sum();
+                m[j][k] = v;
+            }
+            // Check: the image equals Σⱼ m[j][k]·fⱼ exactly.
+            let mut rebuilt = Poly::new();
+            for j in 0..d {
+                if !m[j][k].is_zero() {
+                    for (e, c) in &self.t.parts[j] {
+                        add_into(&mut rebuilt, *e, c * &m[j][k]);
+                    }
+                }
+            }
+            if rebuilt != img {
+                return None;
+            }
+        }
+        Some(m)
+    }
+}
+
+/// Rank of a small matrix over the field (rows as vectors).
+fn rank(rows: &[Vec<Cyclo>]) -> usize {
+    let mut m: Vec<Vec<Cyclo>> = rows.to_vec();
+    let ncol = m.first().map(|r| r.len()).unwrap_or(0);
+    let mut r = 0;
+    for c in 0..ncol {
+        let Some(p) = (r..m.len()).find(|&i| !m[i][c].is_zero()) else {
+            continue;
+        };
+        m.swap(r, p);
+        let inv = m[r][c].inv().expect("nonzero pivot");
+        for i in 0..m.len() {
+            if i != r && !m[i][c].is_zero() {
+                let f = &m[i][c] * &inv;
+                for j in c..ncol {
+                    let v = &m[r][j] * &f;
+                    m[i][j] -= &v;
+                }
+            }
+        }
+        r += 1;
+    }
+    r
 }

@@ -11,7 +11,7 @@ mod registry;
 mod table;
 pub mod validate;
 
-pub use functions::{act, parse_tuple, tuple_matrix, FunctionTuple, Poly};
+pub use functions::{act, parse_tuple, tuple_matrices, tuple_matrix, FunctionTuple, Poly};
 pub use generate::{op_matrix, strip_count, SymOp};
 pub use matrix::{det as mat_det, mul as mat_mul, to_float, trace as mat_trace, Mat3};
 pub use registry::{canonical_name, load, names};

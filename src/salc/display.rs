@@ -121,25 +121,29 @@ pub fn salc_text(s: &Salc, members: &[Member], nt: Notation) -> String {
 
 /// Exact normalized coefficient strings (ASCII): `1/2`, `-1/sqrt(6)`, `2/sqrt(6)`.
 pub fn coefficient_strings(s: &Salc) -> Vec<String> {
-    let exact_root = sqrt(&s.norm2).ok();
+    // A rational √norm² is divided out; otherwise coefficients are written as c/sqrt(N).
+    let exact_root = s
+        .norm2
+        .to_rational()
+        .and_then(|q| crate::exact::sqrt_rational(&q).ok())
+        .filter(|r| r.is_rational());
+    let n = s.norm2.text(Notation::Ascii);
+    let n = if s.norm2.is_rational() && s.norm2.to_rational().is_some_and(|q| q.is_integer()) {
+        n
+    } else {
+        format!("({n})")
+    };
     s.coefficients
         .iter()
         .map(|c| {
             if c.is_zero() {
                 return "0".into();
             }
-            if let Some(r) = exact_root.as_ref().filter(|r| r.is_rational()) {
+            if let Some(r) = exact_root.as_ref() {
                 return (c / r).text(Notation::Ascii);
             }
             let t = c.text(Notation::Ascii);
             let t = if is_atomic(&t) { t } else { format!("({t})") };
-            let n = s.norm2.text(Notation::Ascii);
-            let n =
-                if s.norm2.is_rational() && s.norm2.to_rational().is_some_and(|q| q.is_integer()) {
-                    n
-                } else {
-                    format!("({n})")
-                };
             format!("{t}/sqrt({n})")
         })
         .collect()

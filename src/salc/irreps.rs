@@ -12,7 +12,7 @@
 //! Representations of Finite Groups*, §2.6–2.7).
 
 use crate::exact::{sqrt, Cyclo};
-use crate::group::{tuple_matrix, FunctionTuple, PointGroup};
+use crate::group::{FunctionTuple, PointGroup};
 use crate::rep::pair_label;
 use std::collections::HashMap;
 use std::sync::{Arc, Mutex, OnceLock};
@@ -98,13 +98,24 @@ pub fn real_irreps(g: &PointGroup) -> Result<Arc<Vec<RealIrrep>>, IrrepError> {
     if let Some(v) = cache().lock().expect("irrep cache").get(g.name()) {
         return Ok(v.clone());
     }
-    let mut out = Vec::new();
-    for (i, ir) in g.table.irreps.iter().enumerate() {
-        if matches!(ir.pair, Some(p) if p < i) {
-            continue;
+    // First the irreps with their own function tuples (or of dimension 1), then the others,
+    // which may reuse those (X = Y ⊗ L) before falling back to the regular representation.
+    let rows: Vec<usize> = (0..g.table.irreps.len())
+        .filter(|&i| !matches!(g.table.irreps[i].pair, Some(p) if p < i))
+        .collect();
+    let mut out: Vec<RealIrrep> = Vec::new();
+    let mut rest = Vec::new();
+    for &i in &rows {
+        match build_own(g, i) {
+            Some(r) => out.push(r),
+            None => rest.push(i),
         }
-        out.push(build(g, i)?);
     }
+    for i in rest {
+        let r = build(g, i, &out)?;
+        out.push(r);
+    }
+    out.sort_by_key(|r| r.row);
     let out = Arc::new(out);
     cache()
         .lock()
@@ -124,7 +135,19 @@ fn real_chars(g: &PointGroup, row: usize) -> Vec<Cyclo> {
         .collect()
 }
 
-fn build(g: &PointGroup, row: usize) -> Result<RealIrrep, IrrepError> {
+fn build_own(g: &PointGroup, row: usize) -> Option<RealIrrep> {
+    let chars = real_chars(g, row);
+    let dim = chars[0].to_i64().unwrap_or(1) as usize;
+    let ir = &g.table.irreps[row];
+    if dim != 1 && !ir.functions.all().any(|t| t.dim() == dim) {
+        return None;
+    }
+    build(g, row, &[])
+        .ok()
+        .filter(|r| !matches!(r.source, MatrixSource::Regular))
+}
+
+fn build(g: &PointGroup, row: usize, built: &[RealIrrep]) -> Result<RealIrrep, IrrepError> {
     let ir = &g.table.irreps[row];
     let chars = real_chars(g, row);
     let dim = chars[0].to_i64().unwrap_or(1) as usize;
@@ -155,6 +178,15 @@ fn build(g: &PointGroup, row: usize) -> Result<RealIrrep, IrrepError> {
             return Ok(mk(mats, norms, MatrixSource::Functions(t.text.clone())));
         }
     }
+    // X = Y ⊗ L for a one-dimensional L and an irrep Y that has functions (e.g. T2g = T2u ⊗ Au
+    // in Ih): D_X(R) = χ_L(R)·D_Y(R), exact and cheap.
+    if let Some((mats, norms, from)) = from_product_with_1d(g, row, &chars, built) {
+        return Ok(mk(
+            mats,
+            norms,
+            MatrixSource::Functions(format!("{from} (times a one-dimensional irrep)")),
+        ));
+    }
     if let Some((mats, norms)) = from_regular(g, &chars, dim) {
         return Ok(mk(mats, norms, MatrixSource::Regular));
     }
@@ -164,18 +196,57 @@ fn build(g: &PointGroup, row: usize) -> Result<RealIrrep, IrrepError> {
     })
 }
 
+/// Matrices of `row` as (one-dimensional irrep L) × (an already built irrep Y from functions).
+fn from_product_with_1d(
+    g: &PointGroup,
+    row: usize,
+    chars: &[Cyclo],
+    built: &[RealIrrep],
+) -> Option<(Vec<Matrix>, Vec<Cyclo>, String)> {
+    for l in 0..g.table.irreps.len() {
+        let lir = &g.table.irreps[l];
+        if lir.dim() != 1 || lir.pair.is_some() || lir.chars.iter().any(|c| !c.is_rational()) {
+            continue;
+        }
+        let lchars = real_chars(g, l);
+        for y in built {
+            if y.row == row || y.pair.is_some() || y.dim != chars[0].to_i64().unwrap_or(0) as usize
+            {
+                continue;
+            }
+            let MatrixSource::Functions(text) = &y.source else {
+                continue;
+            };
+            let ychars = real_chars(g, y.row);
+            if (0..chars.len()).any(|o| chars[o] != &lchars[o] * &ychars[o]) {
+                continue;
+            }
+            let mats = y
+                .mats
+                .iter()
+                .zip(&lchars)
+                .map(|(m, s)| {
+                    m.iter()
+                        .map(|r| r.iter().map(|x| x * s).collect())
+                        .collect()
+                })
+                .collect();
+            return Some((mats, y.norms.clone(), format!("{text} of {}", y.label)));
+        }
+    }
+    None
+}
+
 /// Matrices of a tuple, if they have the irrep's character.
 fn from_tuple(g: &PointGroup, t: &FunctionTuple, chars: &[Cyclo]) -> Option<Vec<Matrix>> {
-    let mut out = Vec::with_capacity(g.order());
-    for (o, op) in g.ops.iter().enumerate() {
-        let m = tuple_matrix(&op.matrix, t)?;
+    let mats = crate::group::tuple_matrices(g.ops.iter().map(|o| &o.matrix), t)?;
+    for (o, m) in mats.iter().enumerate() {
         let tr: Cyclo = (0..m.len()).map(|i| m[i][i].clone()).sum();
         if tr != chars[o] || m.iter().flatten().any(|x| !x.is_real()) {
             return None;
         }
-        out.push(m);
     }
-    Some(out)
+    Some(mats)
 }
 
 /// B = Σ_R A(R)ᵀ A(R): positive definite and invariant.
