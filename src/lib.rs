@@ -5,8 +5,12 @@
 //! point-group detection ([`geom`]). The command line and the terminal workspace are thin
 //! faces over it.
 
+pub mod analysis;
+pub mod cli;
 pub mod exact;
 pub mod group;
 pub mod rep;
 pub mod report;
-pub mod cli;
+pub mod session;
+#[cfg(feature = "tui")]
+pub mod tui;

@@ -2,6 +2,7 @@
 //!
 //! Exit codes: 0 success, 2 bad input (message on stderr), 1 other failures.
 
+mod session_cmds;
 mod table_cmds;
 
 use clap::{Parser, Subcommand};
@@ -59,6 +60,10 @@ pub enum Command {
     Product(table_cmds::ProductArgs),
     /// Check a table file against every rule the shipped tables obey.
     CheckTable(table_cmds::CheckTableArgs),
+    /// Report of a session file: group, table, worked reductions, bands, notes.
+    Report(session_cmds::ReportArgs),
+    /// Open a session file in the terminal workspace.
+    Open(session_cmds::OpenArgs),
 }
 
 /// Run a parsed command line (everything but the terminal workspace).
@@ -70,13 +75,16 @@ pub fn run(cli: &Cli) -> CliResult {
         Some(Command::Reduce(a)) => table_cmds::reduce(a, ascii),
         Some(Command::Product(a)) => table_cmds::product(a, ascii),
         Some(Command::CheckTable(a)) => table_cmds::check_table(a),
-        None => Ok(()),
+        Some(Command::Report(a)) => session_cmds::report(a, ascii),
+        Some(Command::Open(a)) => session_cmds::open(a, ascii),
+        None => session_cmds::workspace(None, ascii, false),
     }
 }
 
 /// Parse `--format` values.
 pub fn parse_format(s: &str) -> Result<crate::report::Format, String> {
-    crate::report::Format::parse(s).ok_or_else(|| format!("unknown format '{s}' (text, md, latex, json)"))
+    crate::report::Format::parse(s)
+        .ok_or_else(|| format!("unknown format '{s}' (text, md, latex, json)"))
 }
 
 /// Print a CliError the friendly way and return its exit code.
