@@ -11,6 +11,8 @@ pub mod exact;
 pub mod group;
 pub mod rep;
 pub mod report;
+#[doc(hidden)]
+pub mod robustness;
 pub mod session;
 #[cfg(feature = "tui")]
 pub mod tui;

@@ -2,10 +2,10 @@
 //! No chemistry here.
 
 use clap::Parser;
-use salcdesk::cli::{report_error, run, Cli};
+use salcdesk::cli::{preprocess_args, report_error, run, Cli};
 
 fn main() {
-    let cli = Cli::parse();
+    let cli = Cli::parse_from(preprocess_args(std::env::args().collect()));
     if let Err(e) = run(&cli) {
         std::process::exit(report_error(&e));
     }

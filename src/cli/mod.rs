@@ -87,6 +87,26 @@ pub fn parse_format(s: &str) -> Result<crate::report::Format, String> {
         .ok_or_else(|| format!("unknown format '{s}' (text, md, latex, json)"))
 }
 
+/// Let negative exact numbers (`-1`, `-1/2`, `-sqrt(2)`) pass as values: a lone-dash argument that
+/// is not a known short flag but parses as a number gets a Unicode minus, which the number
+/// syntax reads the same way.
+pub fn preprocess_args(args: Vec<String>) -> Vec<String> {
+    args.into_iter()
+        .map(|a| {
+            let is_short_flag = matches!(a.as_str(), "-f" | "-h" | "-V" | "-o");
+            if a.starts_with('-')
+                && !a.starts_with("--")
+                && !is_short_flag
+                && crate::exact::parse(&a).is_ok()
+            {
+                format!("−{}", &a[1..])
+            } else {
+                a
+            }
+        })
+        .collect()
+}
+
 /// Print a CliError the friendly way and return its exit code.
 pub fn report_error(e: &CliError) -> i32 {
     eprintln!("salcdesk: {}", e.message);

@@ -2,8 +2,8 @@
 
 use super::{parse_format, CliError, CliResult};
 use crate::group::{self, PointGroup};
-use crate::report::{self, Format};
 use crate::rep::{self, Character, MemberKind};
+use crate::report::{self, Format};
 use clap::Args;
 use std::sync::Arc;
 
@@ -19,7 +19,12 @@ pub struct GroupsArgs {
 }
 
 pub fn groups(a: &GroupsArgs, ascii: bool) -> CliResult {
-    let mut rows = vec![vec!["name".to_string(), "symbol".into(), "order".into(), "family".into()]];
+    let mut rows = vec![vec![
+        "name".to_string(),
+        "symbol".into(),
+        "order".into(),
+        "family".into(),
+    ]];
     for name in group::names() {
         let g = load(name)?;
         let fam = g.table.family.name();
@@ -30,8 +35,15 @@ pub fn groups(a: &GroupsArgs, ascii: bool) -> CliResult {
         }
         rows.push(vec![
             name.to_string(),
-            if ascii { name.to_string() } else { g.table.symbol.clone() },
-            g.table.order.map(|o| o.to_string()).unwrap_or_else(|| "∞".replace('∞', if ascii { "inf" } else { "∞" })),
+            if ascii {
+                name.to_string()
+            } else {
+                g.table.symbol.clone()
+            },
+            g.table
+                .order
+                .map(|o| o.to_string())
+                .unwrap_or_else(|| "∞".replace('∞', if ascii { "inf" } else { "∞" })),
             fam.to_string(),
         ]);
     }
@@ -59,10 +71,9 @@ pub struct ReduceArgs {
     /// Point group.
     pub group: String,
     /// Characters in the table's class order (exact notation: 2, -1, sqrt(2), 2cos(2pi/5) …).
-    #[arg(allow_hyphen_values = true)]
     pub characters: Vec<String>,
     /// Give unmoved counts per class instead of characters.
-    #[arg(long, num_args = 1.., allow_hyphen_values = true, conflicts_with = "characters")]
+    #[arg(long, num_args = 1.., conflicts_with = "characters")]
     pub unmoved: Option<Vec<i64>>,
     /// What each unmoved member is: stretch (also σ orbitals), cartesian, pi, axial.
     #[arg(long, default_value = "stretch")]
@@ -103,7 +114,12 @@ fn reduce_linear(g: &PointGroup, a: &ReduceArgs, kind: MemberKind, ascii: bool) 
         CliError::input(format!(
             "{} is a linear group: give --unmoved counts per class ({})",
             g.name(),
-            g.table.classes.iter().map(|c| c.ascii.as_str()).collect::<Vec<_>>().join(" ")
+            g.table
+                .classes
+                .iter()
+                .map(|c| c.ascii.as_str())
+                .collect::<Vec<_>>()
+                .join(" ")
         ))
     })?;
     let lr = rep::reduce_linear_unmoved(g, counts, kind).map_err(CliError::input)?;
@@ -209,12 +225,22 @@ pub fn check_table(a: &CheckTableArgs) -> CliResult {
         .map_err(|e| CliError::input(e.to_string()))?;
     let problems = group::validate::validate(&g);
     if problems.is_empty() {
-        println!("{}: {} passes every check ({} operations, {} classes)", a.file.display(), g.name(), g.order(), g.n_classes());
+        println!(
+            "{}: {} passes every check ({} operations, {} classes)",
+            a.file.display(),
+            g.name(),
+            g.order(),
+            g.n_classes()
+        );
         Ok(())
     } else {
         for p in &problems {
             eprintln!("{}: {p}", a.file.display());
         }
-        Err(CliError::input(format!("{} problem(s) in {}", problems.len(), a.file.display())))
+        Err(CliError::input(format!(
+            "{} problem(s) in {}",
+            problems.len(),
+            a.file.display()
+        )))
     }
 }

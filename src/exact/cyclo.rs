@@ -7,9 +7,10 @@
 //! are compared and combined in Q(ζ_lcm). Rationals are kept with n = 1, the cheap common case.
 
 use super::poly::{gcd, lcm, reduce, totient};
+use super::rat::Rat;
 use num_bigint::BigInt;
 use num_rational::BigRational;
-use num_traits::{One, Signed, ToPrimitive, Zero};
+use num_traits::{ToPrimitive, Zero};
 use std::fmt;
 use std::ops::{Add, AddAssign, Div, Mul, Neg, Sub, SubAssign};
 
@@ -17,11 +18,7 @@ use std::ops::{Add, AddAssign, Div, Mul, Neg, Sub, SubAssign};
 #[derive(Clone)]
 pub struct Cyclo {
     n: u32,
-    coeffs: Vec<BigRational>,
-}
-
-fn rat(i: i64) -> BigRational {
-    BigRational::from_integer(BigInt::from(i))
+    coeffs: Vec<Rat>,
 }
 
 impl Cyclo {
@@ -35,7 +32,7 @@ impl Cyclo {
     }
     /// An integer.
     pub fn from_int(i: i64) -> Self {
-        Self::from_rational(rat(i))
+        Self::from_rat(Rat::int(i))
     }
     /// A fraction p/q (q ≠ 0).
     pub fn frac(p: i64, q: i64) -> Self {
@@ -43,6 +40,12 @@ impl Cyclo {
     }
     /// A rational number.
     pub fn from_rational(r: BigRational) -> Self {
+        Cyclo {
+            n: 1,
+            coeffs: vec![Rat::from_big(r)],
+        }
+    }
+    fn from_rat(r: Rat) -> Self {
         Cyclo {
             n: 1,
             coeffs: vec![r],
@@ -53,9 +56,9 @@ impl Cyclo {
     pub fn zeta(n: u32, k: i64) -> Self {
         assert!(n > 0, "root of unity of order 0");
         let k = k.rem_euclid(n as i64) as usize;
-        let mut dense = vec![BigRational::zero(); n as usize];
-        dense[k] = BigRational::one();
-        Self::from_dense(dense, n)
+        let mut dense = vec![Rat::ZERO; n as usize];
+        dense[k] = Rat::int(1);
+        Self::from_dense_rat(dense, n)
     }
 
     /// exp(2πi·p/q) for a fraction of a turn.
@@ -84,6 +87,9 @@ impl Cyclo {
 
     /// Build from a dense polynomial in ζₙ (any length), reducing modulo Φₙ.
     pub fn from_dense(dense: Vec<BigRational>, n: u32) -> Self {
+        Self::from_dense_rat(dense.into_iter().map(Rat::from_big).collect(), n)
+    }
+    fn from_dense_rat(dense: Vec<Rat>, n: u32) -> Self {
         let coeffs = reduce(dense, n);
         let mut c = Cyclo { n, coeffs };
         c.normalize();
@@ -113,12 +119,15 @@ impl Cyclo {
     }
 
     /// Coefficients in the power basis of Q(ζₙ).
-    pub fn coefficients(&self) -> &[BigRational] {
-        &self.coeffs
+    pub fn coefficients(&self) -> Vec<BigRational> {
+        self.coeffs.iter().map(Rat::to_big).collect()
     }
 
     /// Express in Q(ζₘ) for a multiple m of n: dense coefficient vector of length φ(m).
     pub fn lift(&self, m: u32) -> Vec<BigRational> {
+        self.lift_rat(m).iter().map(Rat::to_big).collect()
+    }
+    fn lift_rat(&self, m: u32) -> Vec<Rat> {
         if m == self.n {
             return self.coeffs.clone();
         }
@@ -128,10 +137,10 @@ impl Cyclo {
             "lift to a field that does not contain the element"
         );
         let step = (m / n_eff) as usize;
-        let mut dense = vec![BigRational::zero(); m as usize];
+        let mut dense = vec![Rat::ZERO; m as usize];
         for (k, c) in self.coeffs.iter().enumerate() {
             if !c.is_zero() {
-                dense[k * step] += c;
+                dense[k * step] = &dense[k * step] + c;
             }
         }
         reduce(dense, m)
@@ -147,6 +156,10 @@ impl Cyclo {
     pub fn is_one(&self) -> bool {
         self.n == 1 && self.coeffs[0].is_one()
     }
+    /// Is this −1?
+    pub fn is_minus_one(&self) -> bool {
+        self.n == 1 && self.coeffs[0] == Rat::int(-1)
+    }
     /// Is this a rational number?
     pub fn is_rational(&self) -> bool {
         self.n == 1
@@ -154,26 +167,33 @@ impl Cyclo {
     /// The rational value, if rational.
     pub fn to_rational(&self) -> Option<BigRational> {
         if self.n == 1 {
-            Some(self.coeffs[0].clone())
+            Some(self.coeffs[0].to_big())
         } else {
             None
         }
     }
     /// Is this a rational integer?
     pub fn is_integer(&self) -> bool {
-        self.n == 1 && self.coeffs[0].is_integer()
+        self.n == 1
+            && match &self.coeffs[0] {
+                Rat::S(_, d) => *d == 1,
+                Rat::B(b) => b.is_integer(),
+            }
     }
     /// The integer value, if a rational integer.
     pub fn to_integer(&self) -> Option<BigInt> {
         if self.is_integer() {
-            Some(self.coeffs[0].to_integer())
+            Some(self.coeffs[0].to_big().to_integer())
         } else {
             None
         }
     }
     /// The integer value as i64, if it is one and fits.
     pub fn to_i64(&self) -> Option<i64> {
-        self.to_integer().and_then(|i| i.to_i64())
+        match self.coeffs.first() {
+            Some(Rat::S(n, 1)) if self.n == 1 => Some(*n),
+            _ => self.to_integer().and_then(|i| i.to_i64()),
+        }
     }
 
     /// Galois automorphism σₖ: ζ ↦ ζᵏ (k coprime to n).
@@ -182,14 +202,14 @@ impl Cyclo {
             return self.clone();
         }
         let n = self.n as i64;
-        let mut dense = vec![BigRational::zero(); self.n as usize];
+        let mut dense = vec![Rat::ZERO; self.n as usize];
         for (j, c) in self.coeffs.iter().enumerate() {
             if !c.is_zero() {
                 let idx = ((j as i64) * k).rem_euclid(n) as usize;
-                dense[idx] += c;
+                dense[idx] = &dense[idx] + c;
             }
         }
-        Self::from_dense(dense, self.n)
+        Self::from_dense_rat(dense, self.n)
     }
 
     /// Complex conjugate.
@@ -208,7 +228,7 @@ impl Cyclo {
             return None;
         }
         if self.n == 1 {
-            return Some(Self::from_rational(self.coeffs[0].recip()));
+            return Some(Self::from_rat(self.coeffs[0].recip()));
         }
         // x⁻¹ = (Π_{σ ≠ id} σ(x)) / N(x), N(x) = Π_σ σ(x) ∈ Q.
         let n = self.n as i64;
@@ -249,7 +269,7 @@ impl Cyclo {
             if c.is_zero() {
                 continue;
             }
-            let v = rational_to_f64(c);
+            let v = c.to_f64();
             let a = 2.0 * std::f64::consts::PI * k as f64 / n;
             re += v * a.cos();
             im += v * a.sin();
@@ -283,8 +303,8 @@ impl Cyclo {
         if self.is_zero() {
             return 0;
         }
-        if let Some(r) = self.to_rational() {
-            return if r.is_positive() { 1 } else { -1 };
+        if self.n == 1 {
+            return if self.coeffs[0].is_negative() { -1 } else { 1 };
         }
         if self.re_f64() > 0.0 {
             1
@@ -295,7 +315,7 @@ impl Cyclo {
 
     fn combine(&self, other: &Self, sign: bool) -> Self {
         if self.n == other.n {
-            let coeffs: Vec<BigRational> = self
+            let coeffs: Vec<Rat> = self
                 .coeffs
                 .iter()
                 .zip(&other.coeffs)
@@ -306,11 +326,11 @@ impl Cyclo {
             return c;
         }
         let m = self.common(other);
-        let a = self.lift(m);
-        let b = other.lift(m);
+        let a = self.lift_rat(m);
+        let b = other.lift_rat(m);
         let coeffs = a
-            .into_iter()
-            .zip(b)
+            .iter()
+            .zip(&b)
             .map(|(x, y)| if sign { x + y } else { x - y })
             .collect();
         let mut c = Cyclo { n: m, coeffs };
@@ -320,30 +340,33 @@ impl Cyclo {
 
     fn multiply(&self, other: &Self) -> Self {
         if self.n == 1 {
-            return other.scale(&self.coeffs[0]);
+            return other.scale_rat(&self.coeffs[0]);
         }
         if other.n == 1 {
-            return self.scale(&other.coeffs[0]);
+            return self.scale_rat(&other.coeffs[0]);
         }
         let m = self.common(other);
-        let a = self.lift(m);
-        let b = other.lift(m);
-        let mut dense = vec![BigRational::zero(); a.len() + b.len()];
+        let a = self.lift_rat(m);
+        let b = other.lift_rat(m);
+        let mut dense = vec![Rat::ZERO; a.len() + b.len()];
         for (i, x) in a.iter().enumerate() {
             if x.is_zero() {
                 continue;
             }
             for (j, y) in b.iter().enumerate() {
                 if !y.is_zero() {
-                    dense[i + j] += x * y;
+                    dense[i + j] = &dense[i + j] + &(x * y);
                 }
             }
         }
-        Self::from_dense(dense, m)
+        Self::from_dense_rat(dense, m)
     }
 
     /// Multiply by a rational.
     pub fn scale(&self, r: &BigRational) -> Self {
+        self.scale_rat(&Rat::from_big(r.clone()))
+    }
+    fn scale_rat(&self, r: &Rat) -> Self {
         if r.is_zero() {
             return Self::zero();
         }
@@ -387,8 +410,11 @@ impl Cyclo {
         let basis: Vec<Vec<BigRational>> = (0..phi_m)
             .map(|k| Cyclo::zeta(m, k as i64).lift(self.n))
             .collect();
-        let sol = super::linsolve::solve(&basis, &self.coeffs)?;
-        let mut c = Cyclo { n: m, coeffs: sol };
+        let sol = super::linsolve::solve(&basis, &self.coefficients())?;
+        let mut c = Cyclo {
+            n: m,
+            coeffs: sol.into_iter().map(Rat::from_big).collect(),
+        };
         if m <= 2 {
             c = Cyclo {
                 n: 1,
@@ -505,13 +531,13 @@ binop!(Div, div, |a: &Cyclo, b: &Cyclo| a.multiply(
 impl Neg for Cyclo {
     type Output = Cyclo;
     fn neg(self) -> Cyclo {
-        self.scale(&rat(-1))
+        self.scale_rat(&Rat::int(-1))
     }
 }
 impl Neg for &Cyclo {
     type Output = Cyclo;
     fn neg(self) -> Cyclo {
-        self.scale(&rat(-1))
+        self.scale_rat(&Rat::int(-1))
     }
 }
 impl AddAssign<&Cyclo> for Cyclo {

@@ -13,6 +13,7 @@ mod linsolve;
 mod parse;
 mod poly;
 mod print;
+mod rat;
 mod sqrt;
 
 pub use cyclo::{rational_to_f64, Cyclo};

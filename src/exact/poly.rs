@@ -3,9 +3,7 @@
 //! Φₙ is computed from xⁿ − 1 = Π_{d | n} Φ_d by exact integer division and cached.
 //! Source: Lang, *Algebra*, VI §3 (standard facts about cyclotomic polynomials).
 
-use num_bigint::BigInt;
-use num_rational::BigRational;
-use num_traits::Zero;
+use super::rat::Rat;
 use std::collections::HashMap;
 use std::sync::{Arc, Mutex, OnceLock};
 
@@ -90,32 +88,32 @@ fn divide_exact(num: &[i64], den: &[i64]) -> Vec<i64> {
 }
 
 /// Reduce a dense polynomial in ζₙ (any length) modulo Φₙ; returns φ(n) coefficients.
-pub fn reduce(mut coeffs: Vec<BigRational>, n: u32) -> Vec<BigRational> {
+pub fn reduce(mut coeffs: Vec<Rat>, n: u32) -> Vec<Rat> {
     let phi = cyclotomic(n);
     let deg = phi.len() - 1;
     // First fold exponents ≥ n using ζⁿ = 1.
     if coeffs.len() > n as usize {
-        let extra: Vec<BigRational> = coeffs.drain(n as usize..).collect();
+        let extra: Vec<Rat> = coeffs.drain(n as usize..).collect();
         for (k, c) in extra.into_iter().enumerate() {
             let idx = k % n as usize;
-            coeffs[idx] += c;
+            coeffs[idx] = &coeffs[idx] + &c;
         }
     }
     for top in (deg..coeffs.len()).rev() {
         if coeffs[top].is_zero() {
             continue;
         }
-        let c = std::mem::replace(&mut coeffs[top], BigRational::zero());
+        let c = std::mem::replace(&mut coeffs[top], Rat::ZERO);
         let shift = top - deg;
         for (j, pj) in phi.iter().enumerate().take(deg) {
             if *pj != 0 {
-                coeffs[shift + j] -= &c * BigRational::from_integer(BigInt::from(*pj));
+                coeffs[shift + j] = &coeffs[shift + j] - &(&c * &Rat::int(*pj));
             }
         }
     }
     coeffs.truncate(deg);
     while coeffs.len() < deg {
-        coeffs.push(BigRational::zero());
+        coeffs.push(Rat::ZERO);
     }
     coeffs
 }

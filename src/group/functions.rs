@@ -151,6 +151,28 @@ impl PolyParser {
         }
         Ok(p)
     }
+    /// Length of a `sqrt(…)`/`cos(…)`/`sin(…)` call starting here, if any.
+    fn exact_call_len(&self) -> Option<usize> {
+        let rest: String = self.chars[self.pos..].iter().collect();
+        let name = ["sqrt(", "cos(", "sin("]
+            .into_iter()
+            .find(|n| rest.starts_with(n))?;
+        let mut depth = 0;
+        for (k, ch) in rest.chars().enumerate().skip(name.len() - 1) {
+            match ch {
+                '(' => depth += 1,
+                ')' => {
+                    depth -= 1;
+                    if depth == 0 {
+                        return Some(k + 1);
+                    }
+                }
+                _ => {}
+            }
+        }
+        None
+    }
+
     fn sum(&mut self) -> Result<Poly, String> {
         let mut acc = Poly::new();
         let mut sign = 1;
@@ -184,6 +206,12 @@ impl PolyParser {
                     [0, 0, 0],
                     Cyclo::from_rational(BigRational::from_integer(n)),
                 )])
+            } else if let Some(len) = self.exact_call_len() {
+                // An exact-number coefficient such as sqrt(5) or 2cos(2pi/5).
+                let text: String = self.chars[self.pos..self.pos + len].iter().collect();
+                self.pos += len;
+                let v = crate::exact::parse(&text).map_err(|e| format!("'{text}': {e}"))?;
+                Poly::from([([0, 0, 0], v)])
             } else if c == 'x' || c == 'y' || c == 'z' {
                 self.pos += 1;
                 linear_poly((c as u8 - b'x') as usize)

@@ -8,6 +8,7 @@ mod character;
 mod linear;
 mod product;
 mod reduce;
+mod vibration;
 
 pub use character::{Character, CharacterError, MemberKind};
 pub use linear::{reduce_linear_unmoved, reduce_via_subgroup, restrictions, LinearReduction};
@@ -16,5 +17,7 @@ pub use product::{
     irrep_character, symmetric_cube, symmetric_square,
 };
 pub use reduce::{
-    decompose, format_sum, pair_label, parse_gamma, reduce, suggest, Invalid, Line, Reduction, Suggestion, Term,
+    decompose, format_sum, pair_label, parse_gamma, real_terms, reduce, suggest, Invalid, Line,
+    RealTerm, Reduction, Suggestion, Term,
 };
+pub use vibration::{vibrations_from_gamma_3n, vibrations_from_unmoved, Vibrations};

@@ -219,53 +219,123 @@ pub fn pair_label(label: &str) -> String {
         .to_string()
 }
 
-/// Parse `A1 + 2E`, `T2`, `E'+A2''`, `Eu` (ASCII or Unicode labels; `E` also names a 1E+2E
-/// pair) into multiplicities in table order.
+/// Parse `A1 + 2E`, `T2`, `E'+A2''`, `Sigma+g + Piu` (ASCII or Unicode labels; `E` also names a
+/// 1E+2E pair) into multiplicities in table order. Labels are matched longest first, so `+`
+/// inside a label (Σ⁺) is not taken for a sum.
 pub fn parse_gamma(g: &PointGroup, text: &str) -> Result<Vec<u64>, String> {
     let mut m = vec![0u64; g.table.irreps.len()];
-    let t = text.replace('−', "-");
-    for part in t.split('+').map(str::trim) {
-        if part.is_empty() {
-            return Err(format!("empty term in '{text}'"));
+    // Every spelling → the irreps it stands for.
+    let mut names: Vec<(String, Vec<usize>)> = Vec::new();
+    for (i, ir) in g.table.irreps.iter().enumerate() {
+        names.push((ir.label.clone(), vec![i]));
+        names.push((ir.display(), vec![i]));
+        if let Some(p) = ir.pair {
+            let real = pair_label(&ir.label);
+            names.push((real.clone(), vec![i, p]));
+            names.push((crate::group::display_label(&real), vec![i, p]));
         }
-        // Leading count; careful with labels that begin with a digit (1E, 2E).
-        let (count, label) = split_count(g, part)?;
-        if let Some(i) = g.table.irrep_index(label) {
-            m[i] += count;
+    }
+    names.sort_by_key(|(n, _)| std::cmp::Reverse(n.chars().count()));
+    let chars: Vec<char> = text.replace('−', "-").chars().collect();
+    let mut pos = 0;
+    let mut terms = 0;
+    while pos < chars.len() {
+        if chars[pos].is_whitespace() || chars[pos] == '+' {
+            pos += 1;
             continue;
         }
-        // A real pair label such as E or E1 for 1E + 2E.
-        let pair = g.table.irreps.iter().enumerate().find(|(_, ir)| {
-            ir.pair.is_some() && pair_label(&ir.label).eq_ignore_ascii_case(label)
-        });
-        match pair {
-            Some((i, ir)) => {
-                m[i] += count;
-                m[ir.pair.expect("pair")] += count;
+        let rest: String = chars[pos..].iter().collect();
+        // A label that itself starts with a digit (1E) wins over a count.
+        let matched = |s: &str| {
+            names
+                .iter()
+                .find(|(n, _)| {
+                    s.starts_with(n.as_str()) || s.to_lowercase().starts_with(&n.to_lowercase())
+                })
+                .cloned()
+        };
+        let (count, after) = match matched(&rest) {
+            Some(_) if !rest.starts_with(|c: char| c.is_ascii_digit()) => (1, rest.clone()),
+            _ => {
+                let digits: String = rest.chars().take_while(|c| c.is_ascii_digit()).collect();
+                let n = if digits.is_empty() {
+                    1
+                } else {
+                    digits
+                        .parse::<u64>()
+                        .map_err(|_| format!("bad count in '{text}'"))?
+                };
+                let after: String = rest.chars().skip(digits.chars().count()).collect();
+                // "1E" alone: prefer the label reading when the count reading fails.
+                if !digits.is_empty()
+                    && matched(after.trim_start()).is_none()
+                    && matched(&rest).is_some()
+                {
+                    (1, rest.clone())
+                } else {
+                    (n, after.trim_start().to_string())
+                }
             }
-            None => {
-                let labels: Vec<&str> = g.table.irreps.iter().map(|i| i.label.as_str()).collect();
-                return Err(format!(
-                    "'{label}' is not an irrep of {} ({})",
-                    g.name(),
-                    labels.join(", ")
-                ));
-            }
+        };
+        let Some((name, idx)) = matched(&after) else {
+            let labels: Vec<&str> = g.table.irreps.iter().map(|i| i.label.as_str()).collect();
+            let word: String = after.chars().take_while(|c| !c.is_whitespace()).collect();
+            return Err(format!(
+                "'{word}' is not an irrep of {} ({})",
+                g.name(),
+                labels.join(", ")
+            ));
+        };
+        for i in idx {
+            m[i] += count;
         }
+        terms += 1;
+        pos = chars.len() - after.chars().count() + name.chars().count();
+    }
+    if terms == 0 {
+        return Err("no irreps given".into());
     }
     Ok(m)
 }
 
-fn split_count<'a>(g: &PointGroup, part: &'a str) -> Result<(u64, &'a str), String> {
-    if g.table.irrep_index(part).is_some() {
-        return Ok((1, part));
+/// One term of a decomposition as a chemist reads it: label, multiplicity, dimension. A
+/// complex-conjugate pair with equal multiplicities becomes one real degenerate term (E, dim 2).
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct RealTerm {
+    pub label: String,
+    pub multiplicity: u64,
+    pub dimension: usize,
+    /// Irrep indices the term stands for (two for a pair).
+    pub irreps: Vec<usize>,
+}
+
+/// The non-zero terms of multiplicities `m`, pairs merged.
+pub fn real_terms(g: &PointGroup, m: &[u64]) -> Vec<RealTerm> {
+    let mut out = Vec::new();
+    for (i, &n) in m.iter().enumerate() {
+        if n == 0 {
+            continue;
+        }
+        let ir = &g.table.irreps[i];
+        match ir.pair {
+            Some(p) if m.get(p) == Some(&n) => {
+                if p < i {
+                    continue;
+                }
+                out.push(RealTerm {
+                    label: pair_label(&ir.label),
+                    multiplicity: n,
+                    dimension: 2 * ir.dim(),
+                    irreps: vec![i, p],
+                });
+            }
+            _ => out.push(RealTerm {
+                label: ir.label.clone(),
+                multiplicity: n,
+                dimension: ir.dim(),
+                irreps: vec![i],
+            }),
+        }
     }
-    let digits: String = part.chars().take_while(|c| c.is_ascii_digit()).collect();
-    if digits.is_empty() {
-        return Ok((1, part));
-    }
-    let n: u64 = digits
-        .parse()
-        .map_err(|_| format!("bad count in '{part}'"))?;
-    Ok((n, part[digits.len()..].trim()))
+    out
 }

@@ -28,3 +28,63 @@ impl Format {
         })
     }
 }
+
+/// Transliterate prose (orientation notes, messages) for ASCII-only terminals.
+pub fn ascii_prose(s: &str) -> String {
+    let mut out = String::with_capacity(s.len());
+    for c in s.chars() {
+        if c.is_ascii() {
+            out.push(c);
+            continue;
+        }
+        let rep: &str = match c {
+            'σ' => "sigma",
+            'φ' => "phi",
+            'π' => "pi",
+            'Σ' => "Sigma",
+            'Π' => "Pi",
+            'Δ' => "Delta",
+            'Φ' => "Phi",
+            'Γ' => "Gamma",
+            'χ' => "chi",
+            'ε' => "eps",
+            'θ' => "theta",
+            'ν' => "nu",
+            'ζ' => "zeta",
+            '∞' => "inf",
+            '′' => "'",
+            '″' => "''",
+            '−' | '–' | '—' => "-",
+            '·' | '×' => "*",
+            '√' => "sqrt",
+            '≤' => "<=",
+            '≥' => ">=",
+            '≈' => "~",
+            '⊥' | '⟂' => " perp ",
+            '→' => "->",
+            '°' => " deg",
+            'ᵥ' => "v",
+            'ₕ' => "h",
+            'ᵈ' => "d",
+            '⁺' => "+",
+            '⁻' => "-",
+            '“' | '”' => "\"",
+            '‘' | '’' => "'",
+            _ => {
+                if let Some(d) = subscript_digit(c) {
+                    out.push(d);
+                    continue;
+                }
+                "?"
+            }
+        };
+        out.push_str(rep);
+    }
+    out
+}
+
+fn subscript_digit(c: char) -> Option<char> {
+    let sub = ('₀'..='₉').position(|x| x == c);
+    let sup = "⁰¹²³⁴⁵⁶⁷⁸⁹".chars().position(|x| x == c);
+    sub.or(sup).and_then(|k| char::from_digit(k as u32, 10))
+}

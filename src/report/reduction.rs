@@ -12,7 +12,8 @@ use serde_json::{json, Map, Value};
 
 fn num(v: &Cyclo, nt: Notation) -> String {
     let s = v.text(nt);
-    if s.contains(['+', ' ']) || s[1..].contains(['-', '−']) {
+    let tail: String = s.chars().skip(1).collect();
+    if s.contains(['+', ' ']) || tail.contains(['-', '−']) {
         format!("({s})")
     } else {
         s
@@ -89,7 +90,11 @@ pub fn summary(g: &PointGroup, r: &Reduction, nt: Notation) -> String {
 
 /// Full rendering of a reduction.
 pub fn render(g: &PointGroup, r: &Reduction, format: Format, ascii: bool) -> String {
-    let nt = if ascii { Notation::Ascii } else { Notation::Unicode };
+    let nt = if ascii {
+        Notation::Ascii
+    } else {
+        Notation::Unicode
+    };
     match format {
         Format::Json => serde_json::to_string_pretty(&to_json(g, r)).unwrap_or_default() + "\n",
         Format::Text => {
@@ -98,7 +103,13 @@ pub fn render(g: &PointGroup, r: &Reduction, format: Format, ascii: bool) -> Str
                 .table
                 .classes
                 .iter()
-                .map(|c| if ascii { c.ascii.clone() } else { c.symbol.clone() })
+                .map(|c| {
+                    if ascii {
+                        c.ascii.clone()
+                    } else {
+                        c.symbol.clone()
+                    }
+                })
                 .collect();
             let rows = vec![classes, chi];
             let mut out = format!("{}\n", g.name());
@@ -154,7 +165,12 @@ pub fn to_json(g: &PointGroup, r: &Reduction) -> Value {
     out.insert("group".into(), json!(g.name()));
     out.insert(
         "characters".into(),
-        json!(r.chi.0.iter().map(|v| v.text(Notation::Ascii)).collect::<Vec<_>>()),
+        json!(r
+            .chi
+            .0
+            .iter()
+            .map(|v| v.text(Notation::Ascii))
+            .collect::<Vec<_>>()),
     );
     match r.multiplicities() {
         Ok(m) => {
@@ -178,11 +194,21 @@ pub fn to_json(g: &PointGroup, r: &Reduction) -> Value {
             let bad: Vec<String> = inv
                 .offending
                 .iter()
-                .map(|(i, v)| format!("n({}) = {}", g.table.irreps[*i].label, v.text(Notation::Ascii)))
+                .map(|(i, v)| {
+                    format!(
+                        "n({}) = {}",
+                        g.table.irreps[*i].label,
+                        v.text(Notation::Ascii)
+                    )
+                })
                 .collect();
             out.insert(
                 "error".into(),
-                json!(format!("not a representation of {}: {}", g.name(), bad.join(", "))),
+                json!(format!(
+                    "not a representation of {}: {}",
+                    g.name(),
+                    bad.join(", ")
+                )),
             );
             let sug: Vec<Value> = suggest(g, &r.chi)
                 .iter()

@@ -14,7 +14,13 @@ fn functions(t: &CharacterTable, i: usize, ascii: bool) -> Vec<String> {
     t.irreps[i]
         .functions
         .all()
-        .map(|f| if ascii { f.text.clone() } else { pretty_function(&f.text) })
+        .map(|f| {
+            if ascii {
+                f.text.clone()
+            } else {
+                pretty_function(&f.text)
+            }
+        })
         .collect()
 }
 
@@ -39,7 +45,11 @@ fn char_text(g: &PointGroup, i: usize, c: usize, nt: Notation) -> String {
 
 /// Render a group's character table.
 pub fn render(g: &PointGroup, format: Format, ascii: bool) -> String {
-    let nt = if ascii { Notation::Ascii } else { Notation::Unicode };
+    let nt = if ascii {
+        Notation::Ascii
+    } else {
+        Notation::Unicode
+    };
     match format {
         Format::Json => serde_json::to_string_pretty(&to_json(g)).unwrap_or_default() + "\n",
         Format::Text => text(g, nt, ascii),
@@ -50,9 +60,17 @@ pub fn render(g: &PointGroup, format: Format, ascii: bool) -> String {
 
 fn header(g: &PointGroup, ascii: bool) -> Vec<String> {
     let t = &g.table;
-    let mut h = vec![if ascii { t.name.clone() } else { t.symbol.clone() }];
+    let mut h = vec![if ascii {
+        t.name.clone()
+    } else {
+        t.symbol.clone()
+    }];
     for c in &t.classes {
-        h.push(if ascii { c.ascii.clone() } else { c.symbol.clone() });
+        h.push(if ascii {
+            c.ascii.clone()
+        } else {
+            c.symbol.clone()
+        });
     }
     h.push("functions".into());
     h
@@ -88,7 +106,11 @@ fn text(g: &PointGroup, nt: Notation, ascii: bool) -> String {
         t.family.name(),
         order,
         grid::render(&rows, ascii),
-        wrap(&t.orientation)
+        wrap(&if ascii {
+            super::ascii_prose(&t.orientation)
+        } else {
+            t.orientation.clone()
+        })
     )
 }
 
@@ -125,7 +147,12 @@ fn markdown(g: &PointGroup, nt: Notation, ascii: bool) -> String {
         r.push(functions(t, i, ascii).join("; "));
         out.push_str(&format!("| {} |\n", r.join(" | ")));
     }
-    out.push_str(&format!("\n{}\n", t.orientation.trim()));
+    let orientation = if ascii {
+        super::ascii_prose(&t.orientation)
+    } else {
+        t.orientation.clone()
+    };
+    out.push_str(&format!("\n{}\n", orientation.trim()));
     out
 }
 
@@ -191,7 +218,12 @@ pub fn latex_label(label: &str) -> String {
         prefix = format!("{{}}^{{{d}}}");
         s = s[d.len()..].to_string();
     }
-    for (a, b) in [("Sigma", "\\Sigma"), ("Pi", "\\Pi"), ("Delta", "\\Delta"), ("Phi", "\\Phi")] {
+    for (a, b) in [
+        ("Sigma", "\\Sigma"),
+        ("Pi", "\\Pi"),
+        ("Delta", "\\Delta"),
+        ("Phi", "\\Phi"),
+    ] {
         if let Some(r) = s.strip_prefix(a) {
             s = format!("{b}{{}}{r}");
         }
@@ -242,20 +274,37 @@ fn latex(g: &PointGroup) -> String {
     let t = &g.table;
     let ncol = t.classes.len() + 2;
     let mut out = String::new();
-    out.push_str(&format!("\\begin{{tabular}}{{l{}l}}\n\\toprule\n", "c".repeat(ncol - 2)));
+    out.push_str(&format!(
+        "\\begin{{tabular}}{{l{}l}}\n\\toprule\n",
+        "c".repeat(ncol - 2)
+    ));
     let mut h = vec![format!("${}$", latex_label(&t.name))];
-    h.extend(t.classes.iter().map(|c| format!("${}$", latex_class(&c.ascii))));
+    h.extend(
+        t.classes
+            .iter()
+            .map(|c| format!("${}$", latex_class(&c.ascii))),
+    );
     h.push("functions".into());
     out.push_str(&h.join(" & "));
     out.push_str(" \\\\\n\\midrule\n");
     for i in 0..t.irreps.len() {
         let mut r = vec![format!("${}$", latex_label(&t.irreps[i].label))];
         for c in 0..t.classes.len() {
-            r.push(format!("${}$", latex_text(&char_text(g, i, c, Notation::Ascii))));
+            r.push(format!(
+                "${}$",
+                latex_text(&char_text(g, i, c, Notation::Ascii))
+            ));
         }
         let f = functions(t, i, true)
             .iter()
-            .map(|s| format!("${}$", s.replace("Rx", "R_x").replace("Ry", "R_y").replace("Rz", "R_z")))
+            .map(|s| {
+                format!(
+                    "${}$",
+                    s.replace("Rx", "R_x")
+                        .replace("Ry", "R_y")
+                        .replace("Rz", "R_z")
+                )
+            })
             .collect::<Vec<_>>()
             .join("; ");
         r.push(f);

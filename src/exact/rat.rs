@@ -1,0 +1,183 @@
+//! [`Rat`]: a rational number that stays in machine integers while it fits and moves to big
+//! integers when it does not. Every operation is exact; overflow is detected with checked
+//! 128-bit arithmetic, never wrapped (the num-rational overflow discipline, with a fast path).
+
+use num_bigint::BigInt;
+use num_rational::BigRational;
+use num_traits::{Signed, ToPrimitive};
+use std::ops::{Add, Mul, Neg, Sub};
+
+/// An exact rational. Invariant: `S(n, d)` has d > 0 and gcd(n, d) = 1; `B` is used only when
+/// the value does not fit `S`.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum Rat {
+    S(i64, i64),
+    B(Box<BigRational>),
+}
+
+fn gcd_u128(mut a: u128, mut b: u128) -> u128 {
+    while b != 0 {
+        let t = a % b;
+        a = b;
+        b = t;
+    }
+    a
+}
+
+impl Rat {
+    pub const ZERO: Rat = Rat::S(0, 1);
+    pub fn int(i: i64) -> Rat {
+        Rat::S(i, 1)
+    }
+    /// n/d from 128-bit parts (d ≠ 0), reduced; big when it does not fit.
+    fn from_i128(n: i128, d: i128) -> Rat {
+        let (n, d) = if d < 0 { (-n, -d) } else { (n, d) };
+        let g = gcd_u128(n.unsigned_abs(), d as u128).max(1) as i128;
+        let (n, d) = (n / g, d / g);
+        match (i64::try_from(n), i64::try_from(d)) {
+            (Ok(a), Ok(b)) => Rat::S(a, b),
+            _ => Rat::B(Box::new(BigRational::new(BigInt::from(n), BigInt::from(d)))),
+        }
+    }
+    /// From a big rational, shrinking to machine integers when possible.
+    pub fn from_big(r: BigRational) -> Rat {
+        match (r.numer().to_i64(), r.denom().to_i64()) {
+            (Some(a), Some(b)) => Rat::S(a, b),
+            _ => Rat::B(Box::new(r)),
+        }
+    }
+    pub fn to_big(&self) -> BigRational {
+        match self {
+            Rat::S(n, d) => BigRational::new_raw(BigInt::from(*n), BigInt::from(*d)),
+            Rat::B(b) => (**b).clone(),
+        }
+    }
+    pub fn is_zero(&self) -> bool {
+        matches!(self, Rat::S(0, _))
+    }
+    pub fn is_one(&self) -> bool {
+        matches!(self, Rat::S(1, 1))
+    }
+    pub fn to_f64(&self) -> f64 {
+        match self {
+            Rat::S(n, d) => *n as f64 / *d as f64,
+            Rat::B(b) => super::cyclo::rational_to_f64(b),
+        }
+    }
+    pub fn recip(&self) -> Rat {
+        match self {
+            Rat::S(n, d) => Rat::from_i128(*d as i128, *n as i128),
+            Rat::B(b) => Rat::from_big(b.recip()),
+        }
+    }
+    pub fn is_negative(&self) -> bool {
+        match self {
+            Rat::S(n, _) => *n < 0,
+            Rat::B(b) => b.is_negative(),
+        }
+    }
+}
+
+impl Default for Rat {
+    fn default() -> Self {
+        Rat::ZERO
+    }
+}
+
+impl Add for &Rat {
+    type Output = Rat;
+    fn add(self, o: &Rat) -> Rat {
+        match (self, o) {
+            (Rat::S(0, _), x) | (x, Rat::S(0, _)) => x.clone(),
+            (Rat::S(a, b), Rat::S(c, d)) => {
+                if b == d {
+                    if *b == 1 {
+                        if let Some(s) = a.checked_add(*c) {
+                            return Rat::S(s, 1);
+                        }
+                    }
+                    return Rat::from_i128(*a as i128 + *c as i128, *b as i128);
+                }
+                let (a, b, c, d) = (*a as i128, *b as i128, *c as i128, *d as i128);
+                match a.checked_mul(d).zip(c.checked_mul(b)) {
+                    Some((x, y)) => Rat::from_i128(x + y, b * d),
+                    None => Rat::from_big(self.to_big() + o.to_big()),
+                }
+            }
+            _ => Rat::from_big(self.to_big() + o.to_big()),
+        }
+    }
+}
+
+impl Neg for &Rat {
+    type Output = Rat;
+    fn neg(self) -> Rat {
+        match self {
+            Rat::S(n, d) => match n.checked_neg() {
+                Some(m) => Rat::S(m, *d),
+                None => Rat::from_big(-self.to_big()),
+            },
+            Rat::B(b) => Rat::from_big(-(**b).clone()),
+        }
+    }
+}
+
+impl Sub for &Rat {
+    type Output = Rat;
+    fn sub(self, o: &Rat) -> Rat {
+        self + &(-o)
+    }
+}
+
+impl Mul for &Rat {
+    type Output = Rat;
+    fn mul(self, o: &Rat) -> Rat {
+        match (self, o) {
+            (Rat::S(0, _), _) | (_, Rat::S(0, _)) => Rat::ZERO,
+            (Rat::S(1, 1), x) | (x, Rat::S(1, 1)) => x.clone(),
+            (Rat::S(a, b), Rat::S(c, d)) => {
+                if *b == 1 && *d == 1 {
+                    if let Some(p) = a.checked_mul(*c) {
+                        return Rat::S(p, 1);
+                    }
+                }
+                // (a·c)/(b·d) in 128 bits always fits.
+                Rat::from_i128(*a as i128 * *c as i128, *b as i128 * *d as i128)
+            }
+            _ => Rat::from_big(self.to_big() * o.to_big()),
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    #[test]
+    fn overflow_moves_to_big_integers() {
+        let big = Rat::int(i64::MAX);
+        let s = &big + &big;
+        assert_eq!(
+            s.to_big(),
+            BigRational::from_integer(BigInt::from(i64::MAX) * 2)
+        );
+        let p = &big * &big;
+        assert_eq!(
+            p.to_big(),
+            BigRational::from_integer(BigInt::from(i64::MAX).pow(2))
+        );
+        let back = &p * &big.recip();
+        assert_eq!(back, big);
+        let m = Rat::int(i64::MIN);
+        assert_eq!(
+            (-&m).to_big(),
+            BigRational::from_integer(-BigInt::from(i64::MIN))
+        );
+    }
+    #[test]
+    fn fractions_reduce() {
+        let a = Rat::from_i128(2, 4);
+        assert_eq!(a, Rat::S(1, 2));
+        assert_eq!(&a + &a, Rat::int(1));
+        assert_eq!(&Rat::S(1, 3) - &Rat::S(1, 2), Rat::S(-1, 6));
+    }
+}
