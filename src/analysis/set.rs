@@ -5,7 +5,7 @@ use super::classes::resolve_class;
 use super::Depth;
 use crate::exact::Cyclo;
 use crate::group::{mat_det, mat_trace, PointGroup};
-use crate::rep::{self, Character, Invalid, LinearReduction, MemberKind, Reduction};
+use crate::rep::{self, Character, Invalid, LinearReduction, MemberKind, Reduction, Vibrations};
 use crate::session::{MemberSet, SetKind};
 use std::sync::Arc;
 
@@ -42,6 +42,9 @@ pub struct SetAnalysis {
     /// Ticks naming no class of the group: (member index, class name as written).
     pub unknown_ticks: Vec<(usize, String)>,
     pub outcome: Arc<Outcome>,
+    /// For Cartesian sets (one member per atom): Γ3N split into translations, rotations and
+    /// vibrations — meaningful when the set holds every atom of the molecule.
+    pub vibrations: Option<Result<Vibrations, String>>,
 }
 
 impl SetAnalysis {
@@ -111,7 +114,10 @@ pub(super) fn analyze_set(g: &Arc<PointGroup>, s: &MemberSet, depth: Depth) -> S
             }
         }
     };
+    let vibrations = (s.kind == SetKind::Cartesian && !s.members.is_empty())
+        .then(|| rep::vibrations_from_unmoved(g, &unmoved));
     SetAnalysis {
+        vibrations,
         name: s.name.clone(),
         kind: s.kind,
         members: s.members.iter().map(|m| m.name.clone()).collect(),

@@ -66,6 +66,28 @@ pub fn set_result(a: &Analysis, s: &SetAnalysis, ascii: bool) -> String {
     }
 }
 
+/// Γ3N split into translations, rotations and vibrations, for a Cartesian set.
+pub fn vibration_lines(a: &Analysis, s: &SetAnalysis, ascii: bool) -> Vec<String> {
+    let g = &a.group;
+    let sum = |m: &[u64]| crate::rep::format_sum(g, m, !ascii);
+    match &s.vibrations {
+        None => Vec::new(),
+        Some(Err(e)) => vec![format!("no vibrational analysis: {e}")],
+        Some(Ok(v)) => {
+            let gm = if ascii { "Gamma" } else { "Γ" };
+            vec![
+                format!("If these are all the atoms: {gm}3N = {}", sum(&v.gamma_3n)),
+                format!(
+                    "  {gm}trans = {}, {gm}rot = {}",
+                    sum(&v.translations),
+                    sum(&v.rotations)
+                ),
+                format!("  {gm}vib = {}  ({} modes)", sum(&v.vibrations), v.n_modes),
+            ]
+        }
+    }
+}
+
 fn missing(a: &Analysis) -> Vec<(&'static str, &'static str)> {
     let mut v = Vec::new();
     for (name, l) in [
@@ -138,6 +160,10 @@ fn text(s: &Session, a: &Result<Analysis, Error>, ascii: bool) -> String {
         }
         o.push_str(&set_result(a, set, ascii));
         o.push('\n');
+        for l in vibration_lines(a, set, ascii) {
+            o.push_str(&l);
+            o.push('\n');
+        }
     }
     for (name, m) in missing(a) {
         o.push_str(&format!("\n{name}: {m}.\n"));
@@ -350,6 +376,9 @@ fn latex(s: &Session, a: &Result<Analysis, Error>) -> String {
                     }
                     _ => o.push_str(&format!("{}\n\n", latex_escape(&set_result(a, set, true)))),
                 }
+                for l in vibration_lines(a, set, true) {
+                    o.push_str(&format!("\\noindent {}\n\n", latex_escape(l.trim_start())));
+                }
             }
             for (name, m) in missing(a) {
                 o.push_str(&format!("\\subsection*{{{name}}}\n{}.\n", latex_escape(m)));
@@ -446,7 +475,22 @@ fn to_json(s: &Session, a: &Result<Analysis, Error>) -> Value {
                             json!({"member": m, "unmoved_by": classes})
                         })
                         .collect();
+                    let vib = match &set.vibrations {
+                        Some(Ok(v)) => {
+                            let f = |m: &[u64]| crate::rep::format_sum(&a.group, m, false);
+                            json!({
+                                "gamma_3n": f(&v.gamma_3n),
+                                "translations": f(&v.translations),
+                                "rotations": f(&v.rotations),
+                                "vibrations": f(&v.vibrations),
+                                "modes": v.n_modes,
+                            })
+                        }
+                        Some(Err(e)) => json!({"error": e}),
+                        None => json!(null),
+                    };
                     json!({
+                        "vibrations": vib,
                         "name": set.name,
                         "kind": set.kind.name(),
                         "members": ticks,

@@ -54,13 +54,22 @@ pub fn tab_ranges(app: &App, area: Rect) -> Vec<(Panel, u16, u16)> {
     let mut x = area.x;
     let mut out = Vec::new();
     for p in Panel::ALL {
-        let t = format!(" {} {} ", p.index() + 1, p.title());
+        let t = tab_text(p, area.width);
         let w = width(&t) as u16;
         out.push((p, x, x + w));
         x += w + 1;
     }
     let _ = app;
     out
+}
+
+/// A tab's text: padded when there is room.
+fn tab_text(p: Panel, w: u16) -> String {
+    if w >= 90 {
+        format!(" {} {} ", p.index() + 1, p.title())
+    } else {
+        format!("{} {}", p.index() + 1, p.title())
+    }
 }
 
 /// Draw everything.
@@ -98,7 +107,14 @@ fn title_bar(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         .clone()
         .unwrap_or_else(|| "no group".into());
     let modified = if app.dirty() { " [modified]" } else { "" };
-    let right = format!(" {group} · {}{modified} ", app.file_label());
+    let file = match &app.path {
+        Some(p) => p
+            .file_name()
+            .map(|n| n.to_string_lossy().to_string())
+            .unwrap_or_default(),
+        None => "demo, not saved".into(),
+    };
+    let right = format!(" {group} · {file}{modified} ");
     let right = if th.ascii { ascii_fold(&right) } else { right };
     let left = " salcdesk ";
     let room = (area.width as usize).saturating_sub(width(left) + width(&right) + 1);
@@ -119,7 +135,7 @@ fn tabs(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         if i > 0 {
             spans.push(Span::styled(th.pick("│", "|"), th.dim()));
         }
-        let t = format!(" {} {} ", p.index() + 1, p.title());
+        let t = tab_text(p, area.width);
         let st = if p == app.panel {
             th.tab_active()
         } else {

@@ -87,7 +87,7 @@ pub fn lines(app: &App, th: &Theme, width_cols: usize) -> Vec<Line<'static>> {
         th,
     )];
     out.push(styled(
-        &format!("each unmoved member contributes {}", s.kind.contribution()),
+        &format!("χ = unmoved × each; each: {}", s.kind.contribution()),
         th.dim(),
         th,
     ));
@@ -100,24 +100,6 @@ pub fn lines(app: &App, th: &Theme, width_cols: usize) -> Vec<Line<'static>> {
         Outcome::Finite {
             reduction, result, ..
         } => {
-            out.push(styled(
-                &format!(
-                    "n(i) = 1/h Σ g·χ(R)·χi(R)*  with h = {}, term by term in class order:",
-                    reduction.order
-                ),
-                th.dim(),
-                th,
-            ));
-            for l in worked_lines(g, reduction, nt) {
-                for (k, piece) in wrap(&l, width_cols.saturating_sub(2))
-                    .into_iter()
-                    .enumerate()
-                {
-                    let indent = if k == 0 { "" } else { "    " };
-                    out.push(Line::raw(format!("{indent}{piece}")));
-                }
-            }
-            out.push(Line::raw(""));
             let summary = crate::report::reduction::summary(g, reduction, nt);
             match result {
                 Ok(_) => out.push(styled(&summary, th.result(), th)),
@@ -152,6 +134,24 @@ pub fn lines(app: &App, th: &Theme, width_cols: usize) -> Vec<Line<'static>> {
                     }
                 }
             }
+            out.push(Line::raw(""));
+            out.push(styled(
+                &format!(
+                    "Worked: n(i) = 1/h Σ g·χ(R)·χi(R)*, h = {}, terms in class order",
+                    reduction.order
+                ),
+                th.dim(),
+                th,
+            ));
+            for l in worked_lines(g, reduction, nt) {
+                for (k, piece) in wrap(&l, width_cols.saturating_sub(4))
+                    .into_iter()
+                    .enumerate()
+                {
+                    let indent = if k == 0 { "" } else { "    " };
+                    out.push(Line::raw(format!("{indent}{piece}")));
+                }
+            }
         }
         Outcome::Linear(r) => {
             let res = crate::report::session::set_result(a, s, th.ascii);
@@ -161,6 +161,13 @@ pub fn lines(app: &App, th: &Theme, width_cols: usize) -> Vec<Line<'static>> {
             }
         }
         Outcome::Failed(e) => out.push(styled(e, th.error(), th)),
+    }
+    let vib = crate::report::session::vibration_lines(a, s, th.ascii);
+    if !vib.is_empty() {
+        out.push(Line::raw(""));
+        for l in vib {
+            out.push(styled(&l, th.heading(), th));
+        }
     }
     out
 }
