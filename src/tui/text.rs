@@ -61,19 +61,45 @@ pub fn wrap(s: &str, w: usize) -> Vec<String> {
     out
 }
 
-/// Replace the few non-ASCII characters of our own wording for ASCII mode.
+/// Spell our own wording and the tables' prose in ASCII (ASCII mode); anything left that is
+/// not ASCII becomes `?`, so a limited terminal never sees a byte it cannot show.
 pub fn ascii_fold(s: &str) -> String {
-    s.replace(['—', '–', '−', '⁻'], "-")
-        .replace('…', "...")
-        .replace('χ', "chi")
-        .replace('Γ', "Gamma")
-        .replace('·', "*")
-        .replace('¹', "1")
-        .replace('θ', "theta")
-        .replace('σ', "s")
-        .replace('π', "pi")
-        .replace('Å', "A")
-        .replace('→', "->")
-        .replace('↑', "Up")
-        .replace('↓', "Down")
+    let mut o = String::with_capacity(s.len());
+    for c in s.chars() {
+        match c {
+            c if c.is_ascii() => o.push(c),
+            '—' | '–' | '−' | '⁻' => o.push('-'),
+            '…' => o.push_str("..."),
+            'χ' => o.push_str("chi"),
+            'Γ' => o.push_str("Gamma"),
+            '·' => o.push('*'),
+            '×' => o.push('x'),
+            '°' => o.push_str(" deg"),
+            'θ' => o.push_str("theta"),
+            'φ' => o.push_str("phi"),
+            'σ' => o.push('s'),
+            'π' => o.push_str("pi"),
+            'Σ' => o.push_str("Sum"),
+            'Å' => o.push('A'),
+            '→' => o.push_str("->"),
+            '←' => o.push_str("<-"),
+            '↑' => o.push_str("Up"),
+            '↓' => o.push_str("Down"),
+            '≥' => o.push_str(">="),
+            '≤' => o.push_str("<="),
+            '√' => o.push_str("sqrt"),
+            '∞' => o.push_str("inf"),
+            '′' => o.push('\''),
+            '″' => o.push_str("''"),
+            '▸' => o.push('>'),
+            'ᵥ' => o.push('v'),
+            'ₕ' => o.push('h'),
+            '₀'..='₉' => o.push(char::from(b'0' + (c as u32 - '₀' as u32) as u8)),
+            '¹' => o.push('1'),
+            '²' => o.push_str("^2"),
+            '³' => o.push_str("^3"),
+            _ => o.push('?'),
+        }
+    }
+    o
 }

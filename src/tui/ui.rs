@@ -93,6 +93,21 @@ pub fn draw(f: &mut Frame, app: &App) {
         Mode::Ask(q) => question(f, a.body, app, q, &th),
         _ => {}
     }
+    if th.ascii {
+        ascii_only(f);
+    }
+}
+
+/// The ASCII safety net: whatever slipped through (a member name in Greek, a title with a
+/// dash) is shown as its one-character ASCII spelling or `?`.
+fn ascii_only(f: &mut Frame) {
+    for cell in f.buffer_mut().content.iter_mut() {
+        if !cell.symbol().is_ascii() {
+            let folded = ascii_fold(cell.symbol());
+            let c = folded.chars().next().unwrap_or('?');
+            cell.set_char(c);
+        }
+    }
 }
 
 fn title_bar(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
@@ -114,10 +129,11 @@ fn title_bar(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
             .unwrap_or_default(),
         None => "demo, not saved".into(),
     };
-    let right = format!(" {group} · {file}{modified} ");
+    let right = format!(" {group} {} {file}{modified} ", th.pick("·", "|"));
     let right = if th.ascii { ascii_fold(&right) } else { right };
     let left = " salcdesk ";
     let room = (area.width as usize).saturating_sub(width(left) + width(&right) + 1);
+    let title = if th.ascii { ascii_fold(&title) } else { title };
     let mid = trunc(&title, room);
     let gap = (area.width as usize).saturating_sub(width(left) + width(&mid) + width(&right));
     let line = Line::from(vec![

@@ -201,11 +201,6 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     if s.members.is_empty() {
         lines.push(styled("  (no members yet: a adds one)", th.dim(), th));
     }
-    while lines.len()
-        < (g.row_y as usize + g.visible_rows).min(inner.height.saturating_sub(BELOW) as usize)
-    {
-        lines.push(Line::raw(""));
-    }
     // Counts and χ.
     let chis = chi_texts(s, nt);
     let mut unmoved = vec![Span::styled(pad("unmoved", g.name_w as usize), th.dim())];
@@ -236,6 +231,16 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         trunc(&fold(&first, th), inner.width as usize),
         st,
     )));
+    lines.push(styled(
+        &trunc(
+            &format!(
+                "{tick} = one operation of that class (the same for every row) leaves the member in place"
+            ),
+            inner.width as usize,
+        ),
+        th.dim(),
+        th,
+    ));
     if !s.unknown_ticks.is_empty() {
         let names: Vec<String> = s
             .unknown_ticks
