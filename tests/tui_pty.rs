@@ -90,8 +90,8 @@ impl Run {
     }
 }
 
-fn setup() -> (PathBuf, PathBuf) {
-    let dir = std::env::temp_dir().join(format!("salcdesk-pty-{}", std::process::id()));
+fn setup(name: &str) -> (PathBuf, PathBuf) {
+    let dir = std::env::temp_dir().join(format!("salcdesk-pty-{name}-{}", std::process::id()));
     let _ = std::fs::remove_dir_all(&dir);
     std::fs::create_dir_all(&dir).unwrap();
     let p = dir.join("puzzle.toml");
@@ -105,7 +105,7 @@ fn setup() -> (PathBuf, PathBuf) {
 
 #[test]
 fn tick_save_quit_reopen_in_a_real_terminal() {
-    let (p, cache) = setup();
+    let (p, cache) = setup("save");
     let mut run = Run::start(&p, &cache);
     run.wait_for("not a representation of C3v");
     // r1, column 3σv: two steps right, then Space.
@@ -133,4 +133,36 @@ fn tick_save_quit_reopen_in_a_real_terminal() {
     assert!(!again.text().contains("[modified]"));
     again.keys("q");
     again.wait_exit();
+}
+
+#[test]
+fn a_hangup_keeps_the_edits_and_the_next_start_offers_them() {
+    let (p, cache) = setup("hangup");
+    let p2 = p.with_file_name("hangup.toml");
+    std::fs::copy(&p, &p2).unwrap();
+    let mut run = Run::start(&p2, &cache);
+    run.wait_for("not a representation of C3v");
+    run.keys("ll ");
+    run.wait_for("Γ = A₁ + E");
+    // The SSH connection drops: SIGHUP (portable-pty's killer sends exactly that).
+    run.child.clone_killer().kill().unwrap();
+    run.wait_exit();
+    let raw = run.raw.lock().unwrap().clone();
+    let tail = String::from_utf8_lossy(&raw[raw.len().saturating_sub(300)..]).to_string();
+    assert!(tail.contains("\x1b[?1049l"), "terminal restored: {tail:?}");
+    // The session file is untouched; the edit waits in the recovery file beside it.
+    let on_disk = salcdesk::session::load_file(&p2).unwrap();
+    assert_eq!(on_disk.sets[0].members[0].unmoved_by, vec!["E"]);
+    let rec = p2.with_file_name(".hangup.toml.recovery");
+    assert!(rec.exists(), "recovery file written");
+
+    let mut again = Run::start(&p2, &cache);
+    again.wait_for("Unsaved edits found");
+    again.keys("r");
+    again.wait_for("Γ = A₁ + E");
+    again.keys("s");
+    again.wait_for("saved");
+    again.keys("q");
+    again.wait_exit();
+    assert!(!rec.exists(), "a save clears the recovery file");
 }

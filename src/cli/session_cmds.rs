@@ -55,10 +55,8 @@ pub fn open(a: &OpenArgs, ascii: bool) -> CliResult {
 /// The terminal workspace (the demo when `path` is `None`).
 #[cfg(feature = "tui")]
 pub fn workspace(path: Option<PathBuf>, ascii: bool, mono: bool) -> CliResult {
-    crate::tui::run(crate::tui::Options { path, ascii, mono }).map_err(|m| {
-        CliError::input(m)
-            .with_hint("the file was left untouched; `salcdesk report FILE` shows it as text")
-    })
+    crate::tui::run(crate::tui::Options { path, ascii, mono })
+        .map_err(|m| CliError::input(m).with_hint("the session file was left untouched"))
 }
 
 /// Without the `tui` feature there is no workspace.

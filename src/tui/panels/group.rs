@@ -156,9 +156,10 @@ pub fn table_lines(g: &PointGroup, app: &App, th: &Theme, w: usize) -> Vec<Line<
         Span::styled(format!("{name}  "), th.heading()),
         Span::styled(
             format!(
-                "{} family, {order}, {} classes",
+                "{} family, {order}, {} class{}",
                 t.family.name(),
-                t.classes.len()
+                t.classes.len(),
+                if t.classes.len() == 1 { "" } else { "es" }
             ),
             th.dim(),
         ),

@@ -231,16 +231,14 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         trunc(&fold(&first, th), inner.width as usize),
         st,
     )));
-    lines.push(styled(
-        &trunc(
-            &format!(
-                "{tick} = one operation of that class (the same for every row) leaves the member in place"
-            ),
-            inner.width as usize,
-        ),
-        th.dim(),
-        th,
-    ));
+    let legend = if s.multiplicities().is_none() && s.members.len() > 0 {
+        "3 Representation shows the worked sum and single-class fixes".to_string()
+    } else {
+        format!(
+            "{tick} = one operation of that class (the same for every row) leaves the member in place"
+        )
+    };
+    lines.push(styled(&trunc(&legend, inner.width as usize), th.dim(), th));
     if !s.unknown_ticks.is_empty() {
         let names: Vec<String> = s
             .unknown_ticks
