@@ -231,7 +231,7 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         trunc(&fold(&first, th), inner.width as usize),
         st,
     )));
-    let legend = if s.multiplicities().is_none() && s.members.len() > 0 {
+    let legend = if s.multiplicities().is_none() && !s.members.is_empty() {
         "3 Representation shows the worked sum and single-class fixes".to_string()
     } else {
         format!(
