@@ -68,6 +68,14 @@ fn bench(c: &mut Criterion) {
             })
         },
     );
+    let g = salcdesk::group::load("Ih").unwrap();
+    let chi = match &*analysis::analyze_to(&broken, Depth::Quick).unwrap().sets[0].outcome {
+        analysis::Outcome::Finite { chi, .. } => chi.clone(),
+        _ => unreachable!(),
+    };
+    c.bench_function("c60: search for single-class corrections (uncached)", |b| {
+        b.iter(|| salcdesk::rep::suggest(&g, &chi))
+    });
 }
 
 criterion_group! {

@@ -121,3 +121,37 @@ fn no_group_is_a_clear_error() {
     let e = analysis::analyze(&Session::default()).unwrap_err();
     assert!(e.to_string().contains("no point group chosen"));
 }
+
+#[test]
+fn a_c60_sized_cartesian_set_gives_the_known_vibrations() {
+    // from memory (the standard C60 mode count, e.g. Dresselhaus, Dresselhaus & Eklund,
+    // Science of Fullerenes and Carbon Nanotubes, ch. 11): 174 modes in 46 frequencies,
+    // Γvib = 2Ag + 3T1g + 4T2g + 6Gg + 8Hg + Au + 4T1u + 5T2u + 6Gu + 7Hu. Each of the 15
+    // mirror planes holds 4 atoms; no atom lies on a rotation axis.
+    let members = (1..=60)
+        .map(|k| Member {
+            name: format!("C{k}"),
+            unmoved_by: if k <= 4 {
+                vec!["E".into(), "15s".into()]
+            } else {
+                vec!["E".into()]
+            },
+        })
+        .collect();
+    let s = Session {
+        group: Some("Ih".into()),
+        sets: vec![MemberSet {
+            name: "c".into(),
+            kind: SetKind::Cartesian,
+            members,
+        }],
+        ..Session::default()
+    };
+    let a = analysis::analyze(&s).unwrap();
+    let v = a.sets[0].vibrations.clone().unwrap().unwrap();
+    assert_eq!(
+        format_sum(&a.group, &v.vibrations, false),
+        "2Ag + 3T1g + 4T2g + 6Gg + 8Hg + Au + 4T1u + 5T2u + 6Gu + 7Hu"
+    );
+    assert_eq!(v.n_modes, 174);
+}

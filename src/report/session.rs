@@ -55,7 +55,14 @@ pub fn set_result(a: &Analysis, s: &SetAnalysis, ascii: bool) -> String {
     let g = &a.group;
     match &*s.outcome {
         Outcome::Empty => "no members yet".into(),
-        Outcome::Finite { reduction: r, .. } => reduction::summary(g, r, nt(ascii)),
+        Outcome::Finite { result: Ok(m), .. } => format!(
+            "{} = {}",
+            if ascii { "Gamma" } else { "Γ" },
+            crate::rep::format_sum(g, m, !ascii)
+        ),
+        Outcome::Finite {
+            result: Err(inv), ..
+        } => invalid_text(a, inv, ascii),
         Outcome::Linear(Ok(lr)) => format!(
             "{} = {}  ({})",
             if ascii { "Gamma" } else { "Γ" },
@@ -64,6 +71,40 @@ pub fn set_result(a: &Analysis, s: &SetAnalysis, ascii: bool) -> String {
         ),
         Outcome::Linear(Err(e)) | Outcome::Failed(e) => format!("no reduction: {e}"),
     }
+}
+
+/// Why χ is not a representation, and the single-class fixes the analysis found (none at the
+/// quick depth). Uses what the analysis computed; never searches again.
+pub fn invalid_text(a: &Analysis, inv: &crate::rep::Invalid, ascii: bool) -> String {
+    let g = &a.group;
+    let bad: Vec<String> = inv
+        .offending
+        .iter()
+        .map(|(i, v)| {
+            format!(
+                "n({}) = {}",
+                label(&g.table.irreps[*i].label, ascii),
+                v.text(nt(ascii))
+            )
+        })
+        .collect();
+    let mut s = format!(
+        "not a representation of {}: {} (multiplicities must be whole numbers {} 0)",
+        g.name(),
+        bad.join(", "),
+        if ascii { ">=" } else { "≥" }
+    );
+    for sg in &inv.suggestions {
+        s.push_str(&format!(
+            "\n  hint: {}({}) = {} instead of {} would give {}",
+            if ascii { "chi" } else { "χ" },
+            crate::analysis::class_label(&g.table.classes[sg.class], ascii),
+            sg.to.text(nt(ascii)),
+            sg.from.text(nt(ascii)),
+            crate::rep::format_sum(g, &sg.multiplicities, !ascii)
+        ));
+    }
+    s
 }
 
 /// Γ3N split into translations, rotations and vibrations, for a Cartesian set.

@@ -100,7 +100,7 @@ pub fn lines(app: &App, th: &Theme, width_cols: usize) -> Vec<Line<'static>> {
         Outcome::Finite {
             reduction, result, ..
         } => {
-            let summary = crate::report::reduction::summary(g, reduction, nt);
+            let summary = crate::report::session::set_result(a, s, th.ascii);
             match result {
                 Ok(_) => out.push(styled(&summary, th.result(), th)),
                 Err(inv) => {
