@@ -6,13 +6,18 @@
 //! faces over it.
 
 pub mod analysis;
+pub mod basis;
 pub mod cli;
 pub mod exact;
+pub mod geom;
 pub mod group;
 pub mod rep;
 pub mod report;
 #[doc(hidden)]
 pub mod robustness;
+pub mod salc;
+pub mod spectra;
+pub mod survey;
 pub mod session;
 #[cfg(feature = "tui")]
 pub mod tui;

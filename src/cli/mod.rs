@@ -2,7 +2,10 @@
 //!
 //! Exit codes: 0 success, 2 bad input (message on stderr), 1 other failures.
 
+mod geometry_cmds;
+mod molecule_cmds;
 mod session_cmds;
+mod spectra_cmds;
 mod table_cmds;
 
 use clap::{Parser, Subcommand};
@@ -64,6 +67,22 @@ pub enum Command {
     Report(session_cmds::ReportArgs),
     /// Open a session file in the terminal workspace.
     Open(session_cmds::OpenArgs),
+    /// Survey molecules from XYZ files: group, orientation, Γ3N, Γvib, bond and angle sets.
+    Analyze(geometry_cmds::AnalyzeArgs),
+    /// Point group of an XYZ file, and what looser tolerances would give.
+    Detect(geometry_cmds::DetectArgs),
+    /// Idealize a geometry to exact symmetry and write it as XYZ.
+    Symmetrize(geometry_cmds::SymmetrizeArgs),
+    /// IR/Raman activity, polarization and band counts of the fundamentals.
+    Modes(spectra_cmds::ModesArgs),
+    /// Overtones and binary combinations: symmetry, activity, harmonic positions.
+    Combos(spectra_cmds::CombosArgs),
+    /// Hold an observed band list against the prediction.
+    Bands(spectra_cmds::BandsArgs),
+    /// Descent in symmetry: correlate a group's irreps with a subgroup's.
+    Descend(spectra_cmds::DescendArgs),
+    /// SALCs of a basis on a molecule (XYZ file) or a what-if molecule (group + --sites).
+    Salc(molecule_cmds::SalcArgs),
 }
 
 /// Run a parsed command line (everything but the terminal workspace).
@@ -77,8 +96,40 @@ pub fn run(cli: &Cli) -> CliResult {
         Some(Command::CheckTable(a)) => table_cmds::check_table(a),
         Some(Command::Report(a)) => session_cmds::report(a, ascii),
         Some(Command::Open(a)) => session_cmds::open(a, ascii),
+        Some(Command::Analyze(a)) => geometry_cmds::analyze(a, ascii),
+        Some(Command::Detect(a)) => geometry_cmds::detect(a, ascii),
+        Some(Command::Symmetrize(a)) => geometry_cmds::symmetrize(a, ascii),
+        Some(Command::Modes(a)) => spectra_cmds::modes(a, ascii),
+        Some(Command::Combos(a)) => spectra_cmds::combos(a, ascii),
+        Some(Command::Bands(a)) => spectra_cmds::bands(a, ascii),
+        Some(Command::Descend(a)) => spectra_cmds::descend(a, ascii),
+        Some(Command::Salc(a)) => molecule_cmds::salc(a, ascii),
         None => session_cmds::workspace(None, ascii, false),
     }
+}
+
+/// Write a file atomically: a temporary file in the same folder, fsync, rename.
+pub fn write_atomic(path: &std::path::Path, bytes: &[u8]) -> std::io::Result<()> {
+    use std::io::Write;
+    let dir = path
+        .parent()
+        .filter(|d| !d.as_os_str().is_empty())
+        .unwrap_or(std::path::Path::new("."));
+    let name = path
+        .file_name()
+        .map(|n| n.to_string_lossy().into_owned())
+        .unwrap_or_default();
+    let tmp = dir.join(format!(".{name}.{}.salcdesk-tmp", std::process::id()));
+    {
+        let mut f = std::fs::File::create(&tmp)?;
+        f.write_all(bytes)?;
+        f.sync_all()?;
+    }
+    std::fs::rename(&tmp, path)?;
+    if let Ok(d) = std::fs::File::open(dir) {
+        let _ = d.sync_all();
+    }
+    Ok(())
 }
 
 /// Parse `--format` values.

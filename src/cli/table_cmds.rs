@@ -73,7 +73,7 @@ pub struct ReduceArgs {
     /// Characters in the table's class order (exact notation: 2, -1, sqrt(2), 2cos(2pi/5) …).
     pub characters: Vec<String>,
     /// Give unmoved counts per class instead of characters.
-    #[arg(long, num_args = 1.., conflicts_with = "characters")]
+    #[arg(long, num_args = 1.., conflicts_with = "characters", value_parser = parse_count)]
     pub unmoved: Option<Vec<i64>>,
     /// What each unmoved member is: stretch (also σ orbitals), cartesian, pi, axial.
     #[arg(long, default_value = "stretch")]
@@ -81,6 +81,14 @@ pub struct ReduceArgs {
     /// Output format: text, md, latex, json.
     #[arg(long, short, default_value = "text", value_parser = parse_format)]
     pub format: Format,
+}
+
+/// A whole number (a Unicode minus is accepted, as the number notation does).
+fn parse_count(s: &str) -> Result<i64, String> {
+    s.replace('−', "-")
+        .trim()
+        .parse()
+        .map_err(|_| format!("'{s}' is not a whole number"))
 }
 
 pub fn reduce(a: &ReduceArgs, ascii: bool) -> CliResult {

@@ -1,1 +1,34 @@
-//! geom
+//! Molecules and their geometry: elements ([`elements`]), the molecule model
+//! ([`molecule`]), XYZ files ([`xyz`]), bond perception ([`bonds`]), point-group detection
+//! and the near-miss report ([`symmetry`]), standard orientation ([`orient`]), atom
+//! permutations and symmetrization ([`permute`]) and the site builder ([`sites`]).
+//!
+//! Float geometry in ångström throughout. Nothing here depends on the exact character
+//! tables; group names are the tables' ASCII names (`C2v`, `D6h`, `Td`, `Cinfv`, …).
+
+pub mod bonds;
+pub mod elements;
+mod error;
+mod grid;
+mod linalg;
+pub mod molecule;
+pub mod orient;
+pub mod permute;
+pub mod sites;
+pub mod symmetry;
+pub mod xyz;
+
+pub use bonds::{perceive_bonds, DEFAULT_BOND_FACTOR};
+pub use elements::{atomic_number, covalent_radius, mass, symbol};
+pub use error::GeomError;
+pub use molecule::{Atom, Molecule};
+pub use orient::{orient, orient_with, OrientOptions, Oriented};
+pub use permute::{permutation, symmetrize};
+pub use sites::{place, site_types, SiteKind, SiteParams, SiteType};
+pub use symmetry::{
+    detect, group_order, near_miss_summary, near_misses, supported_groups, Detection, Family,
+    NearMiss, DEFAULT_TOLERANCE, NEAR_MISS_TOLERANCES,
+};
+pub use xyz::{
+    read_xyz, read_xyz_frames, write_xyz, FrameSelect, XyzError, XyzErrorKind, XyzOptions,
+};

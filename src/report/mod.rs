@@ -5,6 +5,7 @@
 pub mod grid;
 pub mod reduction;
 pub mod session;
+pub mod survey;
 pub mod table;
 
 /// Output format of a rendering.

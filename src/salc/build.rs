@@ -1,0 +1,373 @@
+//! The SALC engine: for each irrep Γ of multiplicity n and dimension d, exactly n·d orthonormal
+//! SALCs spanning Γ's part of a basis, partners transforming by Γ's matrices.
+//!
+//! Never projects every member: per set of equivalent sites only the members of one site m are
+//! used, and P_1k·m (k = 1 … d) spans that set's share of partner 1 (because
+//! P_11·R = Σ_k D(R)_1k P_1k). Independent vectors are picked and orthogonalized exactly; the
+//! other partners follow from R·s₁ = Σᵢ sᵢ·D(R)ᵢ₁ for d operations with independent columns,
+//! which costs d applications of R instead of a sum over the group.
+
+use super::irreps::{real_irreps, IrrepError, Matrix, RealIrrep};
+use super::project::{inverses, partner_one_images, transfer};
+use crate::basis::{Basis, Member};
+use crate::exact::{solve_field, Cyclo};
+use crate::group::PointGroup;
+use num_bigint::BigInt;
+use num_integer::Integer;
+use num_rational::BigRational;
+use num_traits::{One, Signed, Zero};
+use std::sync::Arc;
+
+/// What a SALC is, beyond its symmetry.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Role {
+    /// An ordinary SALC (a symmetry coordinate, an LGO …).
+    Plain,
+    /// A translation of the whole molecule.
+    Translation,
+    /// A rotation of the whole molecule.
+    Rotation,
+    /// A redundant combination of internal coordinates.
+    Redundant,
+}
+
+/// One SALC: a normalized combination `coefficients / √norm2` of the members.
+#[derive(Debug, Clone)]
+pub struct Salc {
+    /// Index into the group's real irreps.
+    pub irrep: usize,
+    pub label: String,
+    /// Which copy of the irrep (1-based).
+    pub copy: usize,
+    /// Which partner (1-based), behaving like the irrep's `partner`-th function.
+    pub partner: usize,
+    /// Exact coefficients, cleared of common factors (the shortest form to print).
+    pub coefficients: Vec<Cyclo>,
+    /// Σ coefficient², exact and positive.
+    pub norm2: Cyclo,
+    pub role: Role,
+}
+
+impl Salc {
+    /// Normalized coefficients as floats.
+    pub fn floats(&self) -> Vec<f64> {
+        let n = self.norm2.re_f64().sqrt();
+        self.coefficients.iter().map(|c| c.re_f64() / n).collect()
+    }
+}
+
+/// All SALCs of a basis.
+#[derive(Debug, Clone)]
+pub struct SalcSet {
+    pub group: Arc<PointGroup>,
+    pub irreps: Arc<Vec<RealIrrep>>,
+    pub members: Vec<Member>,
+    /// Copies of each real irrep.
+    pub multiplicities: Vec<u64>,
+    pub salcs: Vec<Salc>,
+    pub notes: Vec<String>,
+}
+
+/// Vectors to place first in an irrep's span (translations, rotations), with their role.
+#[derive(Debug, Clone)]
+pub struct Seed {
+    pub vector: Vec<Cyclo>,
+    pub role: Role,
+    /// Real irreps (indices) the seed's family has a part in, each listed once per copy.
+    pub irreps: Vec<usize>,
+}
+
+/// Why SALCs could not be built.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+pub enum SalcError {
+    #[error(transparent)]
+    Irreps(#[from] IrrepError),
+    #[error(transparent)]
+    Basis(#[from] crate::basis::BasisError),
+    #[error("{irrep}: found {found} independent SALCs where the reduction says {expected}")]
+    Count {
+        irrep: String,
+        found: usize,
+        expected: usize,
+    },
+    #[error("no irrep '{0}' in this group")]
+    NoIrrep(String),
+    #[error("{0}")]
+    Other(String),
+}
+
+/// Copies of each real irrep in a basis.
+pub fn real_multiplicities(b: &Basis, irreps: &[RealIrrep]) -> Result<Vec<u64>, SalcError> {
+    let m = b.multiplicities()?;
+    Ok(irreps.iter().map(|ir| m[ir.row]).collect())
+}
+
+/// Every SALC of a basis.
+pub fn salcs(b: &Basis) -> Result<SalcSet, SalcError> {
+    salcs_with_seeds(b, &[], None)
+}
+
+/// SALCs with seeds placed first, optionally for one real irrep only.
+pub fn salcs_with_seeds(
+    b: &Basis,
+    seeds: &[Seed],
+    only: Option<usize>,
+) -> Result<SalcSet, SalcError> {
+    let irreps = real_irreps(&b.group)?;
+    let mult = real_multiplicities(b, &irreps)?;
+    let inv = inverses(b);
+    let reps: Vec<usize> = b.site_orbits().iter().map(|o| o[0]).collect();
+    let mut out = Vec::new();
+    for (x, ir) in irreps.iter().enumerate() {
+        let n = mult[x] as usize;
+        if n == 0 || only.is_some_and(|o| o != x) {
+            continue;
+        }
+        let firsts = partner_ones(b, ir, &inv, &reps, seeds, x, n)?;
+        let recipe = PartnerRecipe::new(ir);
+        for (c, (s1, role)) in firsts.into_iter().enumerate() {
+            let tuple = recipe.partners(b, s1);
+            let tuple = tidy_tuple(tuple);
+            for (p, v) in tuple.into_iter().enumerate() {
+                let (coefficients, norm2) = display_form(v);
+                out.push(Salc {
+                    irrep: x,
+                    label: ir.label.clone(),
+                    copy: c + 1,
+                    partner: p + 1,
+                    coefficients,
+                    norm2,
+                    role,
+                });
+            }
+        }
+    }
+    let mut notes = b.notes.clone();
+    for (x, ir) in irreps.iter().enumerate() {
+        if mult[x] > 0 && ir.dim > 1 {
+            notes.push(format!("{}: {}", ir.label, ir.source.describe()));
+        }
+    }
+    Ok(SalcSet {
+        group: b.group.clone(),
+        irreps: irreps.clone(),
+        members: b.members.clone(),
+        multiplicities: mult,
+        salcs: out,
+        notes,
+    })
+}
+
+fn dot(a: &[Cyclo], b: &[Cyclo]) -> Cyclo {
+    a.iter()
+        .zip(b)
+        .filter(|(x, y)| !x.is_zero() && !y.is_zero())
+        .map(|(x, y)| x * &y.conj())
+        .sum()
+}
+
+/// Exactly n orthogonal partner-1 vectors, seeds first.
+fn partner_ones(
+    b: &Basis,
+    ir: &RealIrrep,
+    inv: &[usize],
+    reps: &[usize],
+    seeds: &[Seed],
+    x: usize,
+    n: usize,
+) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
+    let mut found: Vec<(Vec<Cyclo>, Role)> = Vec::new();
+    // Everything new vectors must be orthogonal to. For a complex pair (¹E + ²E taken as one
+    // real irrep) the commutant is C, not R: P₁₁ is the identity on the whole isotypic part,
+    // any vector u there is a first partner, and u must be orthogonal to both partners of the
+    // copies already found.
+    let mut ortho: Vec<(Vec<Cyclo>, Cyclo)> = Vec::new();
+    let complex_type = ir.pair.is_some();
+    let recipe = PartnerRecipe::new(ir);
+    let mut offer = |v: Vec<Cyclo>, role: Role, found: &mut Vec<(Vec<Cyclo>, Role)>| {
+        let mut v = v;
+        for (c, nc) in &ortho {
+            let f = &dot(&v, c) / nc;
+            if !f.is_zero() {
+                for (vi, ci) in v.iter_mut().zip(c) {
+                    if !ci.is_zero() {
+                        *vi -= &(&f * ci);
+                    }
+                }
+            }
+        }
+        if v.iter().all(Cyclo::is_zero) {
+            return;
+        }
+        let v = tidy(v);
+        if complex_type {
+            for p in recipe.partners(b, v.clone()).into_iter().skip(1) {
+                let n = dot(&p, &p);
+                ortho.push((p, n));
+            }
+        }
+        ortho.push((v.clone(), dot(&v, &v)));
+        found.push((v, role));
+    };
+    for seed in seeds.iter().filter(|s| s.irreps.contains(&x)) {
+        // a seed family (e.g. Tx, Ty, Tz) holds as many copies as it lists the irrep
+        let allowed = seed.irreps.iter().filter(|&&i| i == x).count();
+        let have = found.iter().filter(|(_, r)| *r == seed.role).count();
+        if found.len() == n || have >= allowed {
+            continue;
+        }
+        let v = transfer(b, ir, inv, 0, 0, &seed.vector);
+        offer(v, seed.role, &mut found);
+    }
+    'outer: for &site in reps {
+        for m in b.members_of(site) {
+            for v in partner_one_images(b, ir, inv, m) {
+                if found.len() == n {
+                    break 'outer;
+                }
+                offer(v, Role::Plain, &mut found);
+            }
+        }
+    }
+    if found.len() != n {
+        return Err(SalcError::Count {
+            irrep: ir.label.clone(),
+            found: found.len(),
+            expected: n,
+        });
+    }
+    Ok(found)
+}
+
+/// d operations whose first matrix columns are independent, and the inverse of that d×d
+/// matrix: sᵢ = Σ_k Minv[i][k]·R_k·s₁.
+struct PartnerRecipe {
+    ops: Vec<usize>,
+    minv: Matrix,
+}
+
+impl PartnerRecipe {
+    fn new(ir: &RealIrrep) -> Self {
+        let d = ir.dim;
+        let mut ops = Vec::new();
+        let mut cols: Vec<Vec<Cyclo>> = Vec::new();
+        for (o, a) in ir.mats.iter().enumerate() {
+            if ops.len() == d {
+                break;
+            }
+            let col: Vec<Cyclo> = (0..d).map(|i| a[i][0].clone()).collect();
+            let dependent = !cols.is_empty() && solve_field(&cols, &col).is_some();
+            if !dependent && col.iter().any(|c| !c.is_zero()) {
+                ops.push(o);
+                cols.push(col);
+            }
+        }
+        // M[k][i] = D(R_k)ᵢ₁ and R_k·s₁ = Σᵢ M[k][i]·sᵢ, so sᵢ = Σ_k (M⁻¹)[i][k]·R_k·s₁.
+        // Column j of M⁻¹ solves M·y = e_j.
+        let m_cols: Vec<Vec<Cyclo>> = (0..d)
+            .map(|i| (0..d).map(|k| cols[k][i].clone()).collect())
+            .collect();
+        let inv_cols: Vec<Vec<Cyclo>> = (0..d)
+            .map(|j| {
+                let e: Vec<Cyclo> = (0..d).map(|k| Cyclo::from_int((k == j) as i64)).collect();
+                solve_field(&m_cols, &e).expect("chosen columns are independent")
+            })
+            .collect();
+        let minv = (0..d)
+            .map(|i| (0..d).map(|k| inv_cols[k][i].clone()).collect())
+            .collect();
+        PartnerRecipe { ops, minv }
+    }
+
+    fn partners(&self, b: &Basis, s1: Vec<Cyclo>) -> Vec<Vec<Cyclo>> {
+        let d = self.ops.len();
+        if d == 1 {
+            return vec![s1];
+        }
+        let images: Vec<Vec<Cyclo>> = self.ops.iter().map(|&o| b.apply(o, &s1)).collect();
+        let mut out = Vec::with_capacity(d);
+        for i in 0..d {
+            let mut v = vec![Cyclo::zero(); s1.len()];
+            for (k, img) in images.iter().enumerate() {
+                let f = &self.minv[i][k];
+                if f.is_zero() {
+                    continue;
+                }
+                for (vi, x) in v.iter_mut().zip(img) {
+                    if !x.is_zero() {
+                        *vi += &(f * x);
+                    }
+                }
+            }
+            out.push(v);
+        }
+        out
+    }
+}
+
+/// Rational coordinates of all entries: (lcm of denominators, gcd of numerators).
+fn content(v: &[Cyclo]) -> (BigInt, BigInt) {
+    let mut l = BigInt::one();
+    let mut g = BigInt::zero();
+    for c in v {
+        for q in c.coefficients() {
+            if q.is_zero() {
+                continue;
+            }
+            l = l.lcm(q.denom());
+            g = g.gcd(q.numer());
+        }
+    }
+    (l, g)
+}
+
+fn scale_rational(v: Vec<Cyclo>, r: &BigRational) -> Vec<Cyclo> {
+    v.into_iter().map(|c| c.scale(r)).collect()
+}
+
+/// Clear common denominators and content by a positive rational factor.
+fn tidy(v: Vec<Cyclo>) -> Vec<Cyclo> {
+    let (l, g) = content(&v);
+    if g.is_zero() {
+        return v;
+    }
+    scale_rational(v, &BigRational::new(l, g.abs()))
+}
+
+/// Tidy a partner tuple by one common positive factor (keeps R·sⱼ = Σ sᵢ Dᵢⱼ), sign so that the
+/// first partner's first nonzero coefficient is positive.
+fn tidy_tuple(t: Vec<Vec<Cyclo>>) -> Vec<Vec<Cyclo>> {
+    let all: Vec<Cyclo> = t.iter().flatten().cloned().collect();
+    let (l, g) = content(&all);
+    let mut r = BigRational::new(l, g.abs().max(BigInt::one()));
+    let first = t[0].iter().find(|c| !c.is_zero());
+    if first.is_some_and(|c| c.signum_real() < 0) {
+        r = -r;
+    }
+    t.into_iter().map(|v| scale_rational(v, &r)).collect()
+}
+
+/// The shortest form of one SALC to print: when all coefficients are rational multiples of one
+/// another, a primitive integer vector with the same direction and sign; else the tidied vector.
+pub fn display_form(v: Vec<Cyclo>) -> (Vec<Cyclo>, Cyclo) {
+    let w = match v.iter().find(|c| !c.is_zero()) {
+        Some(f) => {
+            let finv = f.inv().expect("nonzero");
+            let ratios: Vec<Cyclo> = v.iter().map(|c| c * &finv).collect();
+            if ratios.iter().all(Cyclo::is_rational) {
+                let sign = f.signum_real();
+                let w = tidy(ratios);
+                if sign < 0 {
+                    w.into_iter().map(|c| -c).collect()
+                } else {
+                    w
+                }
+            } else {
+                tidy(v)
+            }
+        }
+        None => v,
+    };
+    let n2 = dot(&w, &w);
+    (w, n2)
+}

@@ -1,0 +1,245 @@
+//! Overtone and combination bands of a set of fundamentals: which levels exist, their
+//! symmetry and activity, and the harmonic estimate of their positions.
+//!
+//! The estimate is the harmonic sum; in common practice anharmonicity puts overtones and
+//! combinations at or slightly below it (Herzberg, *Infrared and Raman Spectra* (1945),
+//! ch. II; Nakamoto, Part A, ch. 1).
+//!
+//! Owns: [`Fundamental`], [`CombinationBand`], [`CombinationsReport`], [`predict_combinations`].
+
+use super::error::SpectraError;
+use super::real::{real_index, real_irreps, to_real};
+use super::symmetry::{combination, overtone, Symmetry};
+use crate::group::PointGroup;
+use serde::{Deserialize, Serialize};
+
+/// A fundamental: its irrep and, if known, its position.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct Fundamental {
+    /// Label of a real irrep (`A1`, `E`, `T2g`, `Piu`).
+    pub irrep: String,
+    /// Observed or assigned wavenumber, cm⁻¹.
+    #[serde(default)]
+    pub position_cm: Option<f64>,
+    /// Name such as `ν3`; numbered in list order when absent.
+    #[serde(default)]
+    pub name: Option<String>,
+}
+
+/// Overtone or combination.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum LevelKind {
+    Overtone,
+    Combination,
+}
+
+/// One overtone or binary combination level.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct CombinationBand {
+    pub kind: LevelKind,
+    /// `2ν1`, `3ν2`, `ν1 + ν3`.
+    pub label: String,
+    /// Indices into the fundamentals list (repeated for overtones).
+    pub of: Vec<usize>,
+    /// Harmonic sum, cm⁻¹, when the fundamentals have positions.
+    pub harmonic_cm: Option<f64>,
+    pub symmetry: Symmetry,
+    pub ir: bool,
+    pub raman: bool,
+    /// Has a totally symmetric Raman-active part (a polarized band is possible).
+    pub polarized: bool,
+}
+
+/// Options for [`predict_combinations`].
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct CombinationOptions {
+    /// Include second overtones 3ν.
+    pub second_overtones: bool,
+    /// Drop levels above this harmonic position (cm⁻¹).
+    pub max_cm: Option<f64>,
+}
+
+impl Default for CombinationOptions {
+    fn default() -> Self {
+        CombinationOptions {
+            second_overtones: true,
+            max_cm: None,
+        }
+    }
+}
+
+/// The list of levels for a set of fundamentals.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct CombinationsReport {
+    pub point_group: String,
+    pub fundamentals: Vec<Fundamental>,
+    /// Sorted by harmonic position when known, otherwise in list order.
+    pub levels: Vec<CombinationBand>,
+    pub note: String,
+}
+
+/// The note printed with every prediction.
+pub const ANHARMONIC_NOTE: &str = "Positions are harmonic sums. In common practice \
+anharmonicity puts overtones and combinations at or slightly below the sum (Herzberg 1945, \
+ch. II). Activity follows the symmetry of the level; such bands are usually weak unless \
+enhanced by Fermi resonance.";
+
+/// One fundamental per degenerate set of Γ (per table row multiplicities), without positions,
+/// named ν1, ν2, … in table order.
+pub fn fundamentals_from_gamma(
+    g: &PointGroup,
+    rows: &[u64],
+) -> Result<Vec<Fundamental>, SpectraError> {
+    let real = to_real(g, rows)?;
+    let mut out = Vec::new();
+    for (r, n) in real_irreps(g).iter().zip(real) {
+        for _ in 0..n {
+            out.push(Fundamental {
+                irrep: r.label.clone(),
+                position_cm: None,
+                name: Some(format!("ν{}", out.len() + 1)),
+            });
+        }
+    }
+    Ok(out)
+}
+
+/// Resolve fundamentals' irreps to real-irrep indices, with their names.
+pub(crate) fn resolve(
+    g: &PointGroup,
+    fundamentals: &[Fundamental],
+) -> Result<Vec<(usize, String)>, SpectraError> {
+    fundamentals
+        .iter()
+        .enumerate()
+        .map(|(k, f)| {
+            let bad = |message: String| SpectraError::BadFundamental {
+                index: k + 1,
+                irrep: f.irrep.clone(),
+                position: f.position_cm.map(|p| p.to_string()).unwrap_or("?".into()),
+                message,
+            };
+            if let Some(p) = f.position_cm {
+                if !p.is_finite() || p <= 0.0 {
+                    return Err(bad("position must be a positive number".into()));
+                }
+            }
+            let i = real_index(g, &f.irrep)
+                .ok_or_else(|| bad(format!("not an irrep of {}", g.name())))?;
+            let name = f.name.clone().unwrap_or_else(|| format!("ν{}", k + 1));
+            Ok((i, name))
+        })
+        .collect()
+}
+
+/// Overtones 2ν (and 3ν) of every fundamental and all binary combinations νi + νj.
+pub fn predict_combinations(
+    g: &PointGroup,
+    fundamentals: &[Fundamental],
+    opts: CombinationOptions,
+) -> Result<CombinationsReport, SpectraError> {
+    let resolved = resolve(g, fundamentals)?;
+    let mut levels = Vec::new();
+    let pos = |k: usize| fundamentals[k].position_cm;
+    let mut push = |kind, label: String, of: Vec<usize>, symmetry: Symmetry| {
+        let harmonic_cm = of.iter().map(|&k| pos(k)).sum::<Option<f64>>();
+        if let (Some(max), Some(h)) = (opts.max_cm, harmonic_cm) {
+            if h > max {
+                return;
+            }
+        }
+        levels.push(CombinationBand {
+            kind,
+            label,
+            of,
+            harmonic_cm,
+            ir: symmetry.ir(),
+            raman: symmetry.raman(),
+            polarized: symmetry.polarized(),
+            symmetry,
+        });
+    };
+    for (k, (irrep, name)) in resolved.iter().enumerate() {
+        for n in 2..=if opts.second_overtones { 3 } else { 2 } {
+            let sym = overtone(g, *irrep, n)?;
+            push(
+                LevelKind::Overtone,
+                format!("{n}{name}"),
+                vec![k; n as usize],
+                sym,
+            );
+        }
+    }
+    for (a, (ia, na)) in resolved.iter().enumerate() {
+        for (b, (ib, nb)) in resolved.iter().enumerate().skip(a + 1) {
+            let sym = combination(g, *ia, *ib)?;
+            push(
+                LevelKind::Combination,
+                format!("{na} + {nb}"),
+                vec![a, b],
+                sym,
+            );
+        }
+    }
+    levels.sort_by(|x, y| match (x.harmonic_cm, y.harmonic_cm) {
+        (Some(p), Some(q)) => p.total_cmp(&q),
+        _ => std::cmp::Ordering::Equal,
+    });
+    Ok(CombinationsReport {
+        point_group: g.name().to_string(),
+        fundamentals: fundamentals.to_vec(),
+        levels,
+        note: ANHARMONIC_NOTE.to_string(),
+    })
+}
+
+/// An error in a list of fundamentals, with its line and field.
+#[derive(Debug, Clone, PartialEq, Eq, thiserror::Error)]
+#[error("{file}:{line}: field {field}: {message}")]
+pub struct FundamentalsError {
+    pub file: String,
+    pub line: usize,
+    pub field: usize,
+    pub message: String,
+}
+
+/// Read fundamentals, one per line or separated by `;`: `irrep [position] [name]`, e.g.
+/// `A1 459 ν1`, `T2, 314`; `#` starts a comment. Irreps are checked later against the group
+/// (see [`predict_combinations`]); here only the shape of each line.
+pub fn parse_fundamentals(file: &str, text: &str) -> Result<Vec<Fundamental>, FundamentalsError> {
+    let mut out = Vec::new();
+    for (k, raw) in text.lines().enumerate() {
+        let content = raw.split('#').next().unwrap_or("");
+        for entry in content.split(';') {
+            let fields: Vec<&str> = entry
+                .split([',', '\t', ' '])
+                .map(str::trim)
+                .filter(|s| !s.is_empty())
+                .collect();
+            let Some(irrep) = fields.first() else {
+                continue;
+            };
+            let position_cm = match fields.get(1) {
+                None => None,
+                Some(p) => match p.parse::<f64>() {
+                    Ok(v) if v.is_finite() && v > 0.0 => Some(v),
+                    _ => {
+                        return Err(FundamentalsError {
+                            file: file.to_string(),
+                            line: k + 1,
+                            field: 2,
+                            message: format!("'{p}' is not a positive position in cm⁻¹"),
+                        })
+                    }
+                },
+            };
+            out.push(Fundamental {
+                irrep: irrep.to_string(),
+                position_cm,
+                name: (fields.len() > 2).then(|| fields[2..].join(" ")),
+            });
+        }
+    }
+    Ok(out)
+}

@@ -1,0 +1,152 @@
+//! Shared helpers for the salc_* and basis_* tests: molecules built as orbits of points in a
+//! group's standard orientation, and the laws every SALC set must obey. No tests of its own.
+#![allow(dead_code)]
+
+use nalgebra::Vector3;
+use salcdesk::basis::{Basis, Placed, Structure};
+use salcdesk::exact::Cyclo;
+use salcdesk::salc::{RealIrrep, SalcSet};
+
+/// Atoms: each item generates its whole orbit under the group, in order.
+pub fn orbit_molecule(group: &str, items: &[(&str, [f64; 3])]) -> Structure {
+    let g = salcdesk::group::load(group).unwrap();
+    let mut atoms: Vec<Placed> = Vec::new();
+    for (sym, p) in items {
+        let p = Vector3::new(p[0], p[1], p[2]);
+        for op in &g.ops {
+            let q = op.float * p;
+            if atoms.iter().all(|a| (a.position - q).norm() > 1e-6) {
+                atoms.push(Placed {
+                    symbol: sym.to_string(),
+                    position: q,
+                });
+            }
+        }
+    }
+    let bonds = (1..atoms.len()).filter(|_| false).map(|a| (0, a)).collect();
+    Structure::new(g, atoms, bonds, 1e-4).unwrap()
+}
+
+/// Atoms given explicitly (already symmetric), bonds from atom 1 to all others when `centre`.
+pub fn explicit(group: &str, atoms: &[(&str, [f64; 3])], bonds: &[(usize, usize)]) -> Structure {
+    let g = salcdesk::group::load(group).unwrap();
+    let atoms = atoms
+        .iter()
+        .map(|(s, p)| Placed {
+            symbol: s.to_string(),
+            position: Vector3::new(p[0], p[1], p[2]),
+        })
+        .collect();
+    Structure::new(g, atoms, bonds.to_vec(), 1e-4).unwrap()
+}
+
+/// Bonds from a centre to every ligand, and bonds by distance below `cut` Å.
+pub fn with_bonds(mut s: Structure, cut: f64) -> Structure {
+    let mut bonds = Vec::new();
+    for i in 0..s.len() {
+        for j in i + 1..s.len() {
+            if (s.atoms[i].position - s.atoms[j].position).norm() < cut {
+                bonds.push((i, j));
+            }
+        }
+    }
+    let g = s.group.clone();
+    s = Structure::new(g, s.atoms, bonds, 1e-4).unwrap();
+    s
+}
+
+fn dot(a: &[Cyclo], b: &[Cyclo]) -> Cyclo {
+    a.iter().zip(b).map(|(x, y)| x * y).sum()
+}
+
+/// Σ_R χ(R) R v (the character projector without d/h).
+pub fn char_project(b: &Basis, ir: &RealIrrep, v: &[Cyclo]) -> Vec<Cyclo> {
+    let mut out = vec![Cyclo::zero(); v.len()];
+    for o in 0..b.group.order() {
+        let chi = ir.chi(o);
+        if chi.is_zero() {
+            continue;
+        }
+        for (k, x) in b.apply(o, v).iter().enumerate() {
+            out[k] += &(x * &chi);
+        }
+    }
+    out
+}
+
+/// The laws: counts, orthonormality, exact transformation of every partner tuple by the
+/// irrep's matrices, idempotent projectors summing to the identity.
+pub fn check_laws(b: &Basis, set: &SalcSet) {
+    let h = Cyclo::from_int(b.group.order() as i64);
+    // counts: n·d per irrep, all together the basis dimension
+    for (x, ir) in set.irreps.iter().enumerate() {
+        let c = set.salcs.iter().filter(|s| s.irrep == x).count();
+        assert_eq!(
+            c as u64,
+            set.multiplicities[x] * ir.dim as u64,
+            "count of {}",
+            ir.label
+        );
+    }
+    assert_eq!(set.salcs.len(), b.dim());
+    // orthonormality (exact): distinct SALCs orthogonal, stored norm² right
+    for (i, s) in set.salcs.iter().enumerate() {
+        assert_eq!(dot(&s.coefficients, &s.coefficients), s.norm2);
+        for t in &set.salcs[i + 1..] {
+            assert!(
+                dot(&s.coefficients, &t.coefficients).is_zero(),
+                "{} ⟂ {}",
+                s.label,
+                t.label
+            );
+        }
+    }
+    // transformation: ⟨ŝᵢ, R ŝⱼ⟩ = D(R)ᵢⱼ, checked squared with signs (no square roots needed)
+    for (x, ir) in set.irreps.iter().enumerate() {
+        assert!(ir.orthogonal(), "{} matrices orthogonal", ir.label);
+        for copy in 1..=set.multiplicities[x] as usize {
+            let tuple: Vec<_> = set
+                .salcs
+                .iter()
+                .filter(|s| s.irrep == x && s.copy == copy)
+                .collect();
+            for o in 0..b.group.order() {
+                for (j, sj) in tuple.iter().enumerate() {
+                    let img = b.apply(o, &sj.coefficients);
+                    for (i, si) in tuple.iter().enumerate() {
+                        let g = dot(&si.coefficients, &img);
+                        let a = &ir.mats[o][i][j];
+                        assert_eq!(
+                            &g * &g,
+                            &(&(a * a) * &si.norm2) * &sj.norm2,
+                            "{} op {o}",
+                            ir.label
+                        );
+                        assert_eq!(g.signum_real(), a.signum_real(), "{} op {o} sign", ir.label);
+                    }
+                }
+            }
+        }
+    }
+    // projectors: idempotent, and Σ_Γ P^Γ = 1, on a lopsided test vector
+    let v: Vec<Cyclo> = (0..b.dim())
+        .map(|k| Cyclo::from_int((k * k % 7) as i64 + 1))
+        .collect();
+    let mut total = vec![Cyclo::zero(); b.dim()];
+    for ir in set.irreps.iter() {
+        let f = &Cyclo::from_int(ir.dim as i64) / &h;
+        // a complex pair combined: P = (1/h)Σ(χ₁+χ₂) with d = 1 each
+        let f = if ir.pair.is_some() {
+            &f / &Cyclo::from_int(2)
+        } else {
+            f
+        };
+        let p1: Vec<Cyclo> = char_project(b, ir, &v).iter().map(|c| c * &f).collect();
+        let p2: Vec<Cyclo> = char_project(b, ir, &p1).iter().map(|c| c * &f).collect();
+        assert_eq!(p1, p2, "P^{} idempotent", ir.label);
+        for (t, c) in total.iter_mut().zip(&p1) {
+            *t += c;
+        }
+    }
+    assert_eq!(total, v, "Σ P^Γ = 1");
+}
