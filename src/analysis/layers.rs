@@ -1,4 +1,4 @@
-//! Which layers of the pipeline this build has. Panels backed by a missing layer say so in
+//! Which layers of the pipeline sessions use so far. Panels backed by a missing layer say so in
 //! plain words instead of showing anything made up.
 
 /// Whether a layer is in this build.
@@ -21,19 +21,16 @@ impl Layers {
     pub fn of_this_build() -> Self {
         Layers {
             geometry: LayerStatus::Missing(
-                "reading XYZ files, bonds, point-group detection with near misses, standard \
-                 orientation and the site builder come with the geometry layer, which is not \
-                 in this build yet",
+                "the geometry layer (XYZ files, point-group detection with near misses, \
+                 symmetrizing) is in this build but not yet wired into sessions: use \
+                 `salcdesk detect FILE.xyz` and `salcdesk analyze FILE.xyz` meanwhile",
             ),
             salc: LayerStatus::Missing(
-                "symmetry-adapted linear combinations (projection, normalization, degenerate \
-                 partners) come with the SALC layer, which is not in this build yet",
+                "the SALC layer is in this build but not yet wired into sessions, whose members \
+                 carry ticks rather than positions: use `salcdesk salc` on an XYZ file or a \
+                 group with sites meanwhile",
             ),
-            spectra: LayerStatus::Missing(
-                "IR/Raman activity, polarization, band counts, overtones and combinations, the \
-                 band-list check and descent in symmetry come with the spectra layer, which is \
-                 not in this build yet",
-            ),
+            spectra: LayerStatus::Present,
         }
     }
 }

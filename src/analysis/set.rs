@@ -45,6 +45,10 @@ pub struct SetAnalysis {
     /// For Cartesian sets (one member per atom): Γ3N split into translations, rotations and
     /// vibrations — meaningful when the set holds every atom of the molecule.
     pub vibrations: Option<Result<Vibrations, String>>,
+    /// IR/Raman activity and band counts (spectra layer) of the fundamentals this set
+    /// describes: Γvib for a Cartesian set, Γ itself for internal coordinates (stretches,
+    /// bends); `None` for orbital-type sets (scalar, pi, axial) and impossible χ.
+    pub modes: Option<Result<crate::spectra::ModesReport, String>>,
 }
 
 impl SetAnalysis {
@@ -116,7 +120,20 @@ pub(super) fn analyze_set(g: &Arc<PointGroup>, s: &MemberSet, depth: Depth) -> S
     };
     let vibrations = (s.kind == SetKind::Cartesian && !s.members.is_empty())
         .then(|| rep::vibrations_from_unmoved(g, &unmoved));
+    let modes = match (&vibrations, s.kind) {
+        (Some(Ok(v)), _) => {
+            Some(crate::spectra::modes_report(g, &v.vibrations).map_err(|e| e.to_string()))
+        }
+        (_, SetKind::Stretch | SetKind::Bend) => match &*outcome {
+            Outcome::Finite { result: Ok(m), .. } => {
+                Some(crate::spectra::modes_report(g, m).map_err(|e| e.to_string()))
+            }
+            _ => None,
+        },
+        _ => None,
+    };
     SetAnalysis {
+        modes,
         vibrations,
         name: s.name.clone(),
         kind: s.kind,

@@ -205,6 +205,10 @@ fn text(s: &Session, a: &Result<Analysis, Error>, ascii: bool) -> String {
             o.push_str(&l);
             o.push('\n');
         }
+        if let Some(Ok(m)) = &set.modes {
+            o.push('\n');
+            o.push_str(&crate::spectra::render::modes_markdown(m));
+        }
     }
     for (name, m) in missing(a) {
         o.push_str(&format!("\n{name}: {m}.\n"));
@@ -420,6 +424,30 @@ fn latex(s: &Session, a: &Result<Analysis, Error>) -> String {
                 for l in vibration_lines(a, set, true) {
                     o.push_str(&format!("\\noindent {}\n\n", latex_escape(l.trim_start())));
                 }
+                if let Some(Ok(m)) = &set.modes {
+                    let act: Vec<String> = m
+                        .modes
+                        .iter()
+                        .map(|l| {
+                            let what = match (l.ir, l.raman) {
+                                (true, true) => "IR, Raman",
+                                (true, false) => "IR",
+                                (false, true) => "Raman",
+                                _ => "silent",
+                            };
+                            let pol = if l.raman && l.polarized { ", p" } else { "" };
+                            format!("{} {} ({what}{pol})", l.multiplicity, l.irrep)
+                        })
+                        .collect();
+                    o.push_str(&format!(
+                        "\\noindent Activity: {}. IR bands: {}; Raman bands: {}; coincident: {}; silent: {}.\n\n",
+                        latex_escape(&act.join("; ")),
+                        m.ir_bands,
+                        m.raman_bands,
+                        m.coincident_bands,
+                        m.silent_fundamentals
+                    ));
+                }
             }
             for (name, m) in missing(a) {
                 o.push_str(&format!("\\subsection*{{{name}}}\n{}.\n", latex_escape(m)));
@@ -530,7 +558,13 @@ fn to_json(s: &Session, a: &Result<Analysis, Error>) -> Value {
                         Some(Err(e)) => json!({"error": e}),
                         None => json!(null),
                     };
+                    let modes = match &set.modes {
+                        Some(Ok(m)) => serde_json::to_value(m).unwrap_or(Value::Null),
+                        Some(Err(e)) => json!({"error": e}),
+                        None => Value::Null,
+                    };
                     json!({
+                        "activity": modes,
                         "vibrations": vib,
                         "name": set.name,
                         "kind": set.kind.name(),

@@ -23,6 +23,42 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
             lines.push(Line::raw(""));
         }
     }
+    if let Ok(a) = &app.analysis {
+        for set in &a.sets {
+            let Some(m) = &set.modes else { continue };
+            lines.push(styled(
+                &format!("{} ({})", set.name, set.kind.name()),
+                th.heading(),
+                th,
+            ));
+            match m {
+                Ok(r) => {
+                    let what = if set.vibrations.is_some() {
+                        "Γvib"
+                    } else {
+                        "Γ"
+                    };
+                    for l in crate::spectra::render::modes_markdown(r).lines() {
+                        let l = l.replacen("Γ =", &format!("{what} ="), 1);
+                        if l.starts_with("|---") {
+                            continue;
+                        }
+                        for piece in super::super::text::wrap(&l, inner.width as usize) {
+                            lines.push(styled(&piece, ratatui::style::Style::default(), th));
+                        }
+                    }
+                }
+                Err(e) => lines.push(styled(e, th.warn(), th)),
+            }
+            lines.push(Line::raw(""));
+        }
+        lines.push(styled(
+            "Band-list check, overtones and descent: `salcdesk bands`, `combos`, `descend` (not yet in the workspace).",
+            th.dim(),
+            th,
+        ));
+        lines.push(Line::raw(""));
+    }
     let bands = &app.session.bands;
     lines.push(styled(
         &format!("Observed bands ({})", bands.len()),
