@@ -5,6 +5,7 @@
 //! point-group detection ([`geom`]). The command line and the terminal workspace are thin
 //! faces over it.
 
+pub mod analysis;
 pub mod basis;
 pub mod cli;
 pub mod exact;
@@ -17,3 +18,6 @@ pub mod robustness;
 pub mod salc;
 pub mod spectra;
 pub mod survey;
+pub mod session;
+#[cfg(feature = "tui")]
+pub mod tui;

@@ -4,6 +4,7 @@
 
 mod geometry_cmds;
 mod molecule_cmds;
+mod session_cmds;
 mod spectra_cmds;
 mod table_cmds;
 
@@ -62,6 +63,10 @@ pub enum Command {
     Product(table_cmds::ProductArgs),
     /// Check a table file against every rule the shipped tables obey.
     CheckTable(table_cmds::CheckTableArgs),
+    /// Report of a session file: group, table, worked reductions, bands, notes.
+    Report(session_cmds::ReportArgs),
+    /// Open a session file in the terminal workspace.
+    Open(session_cmds::OpenArgs),
     /// Survey molecules from XYZ files: group, orientation, Γ3N, Γvib, bond and angle sets.
     Analyze(geometry_cmds::AnalyzeArgs),
     /// Point group of an XYZ file, and what looser tolerances would give.
@@ -89,6 +94,8 @@ pub fn run(cli: &Cli) -> CliResult {
         Some(Command::Reduce(a)) => table_cmds::reduce(a, ascii),
         Some(Command::Product(a)) => table_cmds::product(a, ascii),
         Some(Command::CheckTable(a)) => table_cmds::check_table(a),
+        Some(Command::Report(a)) => session_cmds::report(a, ascii),
+        Some(Command::Open(a)) => session_cmds::open(a, ascii),
         Some(Command::Analyze(a)) => geometry_cmds::analyze(a, ascii),
         Some(Command::Detect(a)) => geometry_cmds::detect(a, ascii),
         Some(Command::Symmetrize(a)) => geometry_cmds::symmetrize(a, ascii),
@@ -97,7 +104,7 @@ pub fn run(cli: &Cli) -> CliResult {
         Some(Command::Bands(a)) => spectra_cmds::bands(a, ascii),
         Some(Command::Descend(a)) => spectra_cmds::descend(a, ascii),
         Some(Command::Salc(a)) => molecule_cmds::salc(a, ascii),
-        None => Ok(()),
+        None => session_cmds::workspace(None, ascii, false),
     }
 }
 

@@ -4,6 +4,7 @@
 
 pub mod grid;
 pub mod reduction;
+pub mod session;
 pub mod survey;
 pub mod table;
 

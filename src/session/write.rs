@@ -1,0 +1,104 @@
+//! Writing sessions back as TOML in a stable, readable layout: the same session always gives
+//! the same text, and reading that text gives the same session.
+
+use super::model::*;
+
+/// A TOML basic string with every needed escape.
+fn q(s: &str) -> String {
+    toml::Value::String(s.to_string()).to_string()
+}
+
+/// A TOML key: bare when it can be, quoted otherwise.
+fn key(s: &str) -> String {
+    if !s.is_empty()
+        && s.chars()
+            .all(|c| c.is_ascii_alphanumeric() || c == '_' || c == '-')
+    {
+        s.to_string()
+    } else {
+        q(s)
+    }
+}
+
+/// A float that reads back to the same value.
+fn num(v: f64) -> String {
+    let s = format!("{v:?}");
+    if s.contains(['.', 'e', 'E']) || s.contains("inf") || s.contains("NaN") {
+        s
+    } else {
+        format!("{s}.0")
+    }
+}
+
+fn list(items: &[String]) -> String {
+    format!(
+        "[{}]",
+        items.iter().map(|s| q(s)).collect::<Vec<_>>().join(", ")
+    )
+}
+
+/// The session as TOML text (format [`FORMAT`]).
+pub fn to_toml(s: &Session) -> String {
+    let mut o = String::new();
+    o.push_str(&format!("format = {FORMAT}\n"));
+    if !s.title.is_empty() {
+        o.push_str(&format!("title = {}\n", q(&s.title)));
+    }
+    if let Some(g) = &s.group {
+        o.push_str(&format!("group = {}\n", q(g)));
+    }
+    if !s.orientation.is_empty() {
+        o.push_str(&format!("orientation = {}\n", q(&s.orientation)));
+    }
+    if !s.notes.is_empty() {
+        o.push_str(&format!("notes = {}\n", q(&s.notes)));
+    }
+    if let Some(g) = &s.geometry {
+        o.push_str("\n[geometry]\n");
+        o.push_str(&format!("tolerance = {}\n", num(g.tolerance)));
+        match &g.source {
+            GeometrySource::File(f) => o.push_str(&format!("file = {}\n", q(f))),
+            GeometrySource::Atoms(atoms) => {
+                o.push_str("atoms = [\n");
+                for a in atoms {
+                    o.push_str(&format!(
+                        "  {{ element = {}, xyz = [{}, {}, {}] }},\n",
+                        q(&a.element),
+                        num(a.xyz[0]),
+                        num(a.xyz[1]),
+                        num(a.xyz[2])
+                    ));
+                }
+                o.push_str("]\n");
+            }
+        }
+    }
+    for set in &s.sets {
+        o.push_str("\n[[set]]\n");
+        o.push_str(&format!("name = {}\n", q(&set.name)));
+        o.push_str(&format!("kind = {}\n", q(set.kind.name())));
+        let names: Vec<String> = set.members.iter().map(|m| m.name.clone()).collect();
+        o.push_str(&format!("members = {}\n", list(&names)));
+        if !set.members.is_empty() {
+            o.push_str("\n[set.unmoved]\n");
+            for m in &set.members {
+                o.push_str(&format!("{} = {}\n", key(&m.name), list(&m.unmoved_by)));
+            }
+        }
+    }
+    for b in &s.bands {
+        o.push_str("\n[[band]]\n");
+        o.push_str(&format!("position = {}\n", num(b.position)));
+        o.push_str(&format!("technique = {}\n", q(b.technique.name())));
+        if !b.intensity.is_empty() {
+            o.push_str(&format!("intensity = {}\n", q(&b.intensity)));
+        }
+        if let Some(p) = b.polarization {
+            o.push_str(&format!("polarization = {}\n", q(p.name())));
+        }
+        if !b.note.is_empty() {
+            o.push_str(&format!("note = {}\n", q(&b.note)));
+        }
+    }
+    o
+}

@@ -1,0 +1,94 @@
+//! Everything the user can ask the workspace to do, as plain data. Keys and mouse clicks are
+//! translated into these (see `keymap`), and `app::App::apply` carries them out.
+
+/// The panels, in Tab order.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub enum Panel {
+    Group,
+    Members,
+    Representation,
+    Combinations,
+    Spectra,
+    Molecule,
+}
+
+impl Panel {
+    pub const ALL: [Panel; 6] = [
+        Panel::Group,
+        Panel::Members,
+        Panel::Representation,
+        Panel::Combinations,
+        Panel::Spectra,
+        Panel::Molecule,
+    ];
+    /// The panel's title: plain chemistry words.
+    pub fn title(self) -> &'static str {
+        match self {
+            Panel::Group => "Point group",
+            Panel::Members => "Members",
+            Panel::Representation => "Representation",
+            Panel::Combinations => "Combinations",
+            Panel::Spectra => "Spectra",
+            Panel::Molecule => "Molecule",
+        }
+    }
+    pub fn index(self) -> usize {
+        Panel::ALL.iter().position(|p| *p == self).unwrap_or(0)
+    }
+    pub fn next(self) -> Self {
+        Panel::ALL[(self.index() + 1) % Panel::ALL.len()]
+    }
+    pub fn prev(self) -> Self {
+        Panel::ALL[(self.index() + Panel::ALL.len() - 1) % Panel::ALL.len()]
+    }
+}
+
+/// One thing to do.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Action {
+    NextPanel,
+    PrevPanel,
+    GoPanel(Panel),
+    Up,
+    Down,
+    Left,
+    Right,
+    PageUp,
+    PageDown,
+    Home,
+    End,
+    /// Choose / confirm what is under the cursor.
+    Enter,
+    /// Tick or untick the cell under the cursor.
+    Toggle,
+    /// Start typing a group name (fuzzy search).
+    Search,
+    Help,
+    Quit,
+    Undo,
+    Redo,
+    Save,
+    SaveAs,
+    Export,
+    NextSet,
+    PrevSet,
+    AddMember,
+    RemoveMember,
+    RenameMember,
+    AddSet,
+    RemoveSet,
+    RenameSet,
+    CycleKind,
+    /// Leave a dialog, search or overlay.
+    Cancel,
+    /// A character typed into a text field.
+    Char(char),
+    Backspace,
+    /// A mouse click at a screen cell.
+    Click {
+        x: u16,
+        y: u16,
+    },
+    ScrollUp,
+    ScrollDown,
+}

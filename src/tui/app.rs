@@ -1,0 +1,921 @@
+//! The workspace state as plain data, and what every action does to it. No terminal here:
+//! tests drive [`App`] with keys and actions and look at the result.
+
+use super::action::{Action, Panel};
+use super::keymap::{self, Code, Key};
+use crate::analysis::{self, Analysis, Depth, GroupEntry};
+use crate::report::session as session_report;
+use crate::report::Format;
+use crate::session::{
+    self, check_save_target, Member, MemberSet, Recovery, SaveTarget, Session, SetKind,
+};
+use std::path::{Path, PathBuf};
+use std::sync::Arc;
+
+/// How many edits `u` can take back.
+const UNDO_DEPTH: usize = 500;
+
+/// What a text field is for.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub enum FieldPurpose {
+    SaveAs,
+    Export,
+    AddMember,
+    RenameMember,
+    AddSet,
+    RenameSet,
+}
+
+/// A one-line text field at the bottom of the screen.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct Field {
+    pub purpose: FieldPurpose,
+    pub label: String,
+    pub text: String,
+}
+
+/// A question that waits for one key.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Question {
+    /// Unsaved edits at quit: s = save and quit, d = discard and quit.
+    Quit,
+    /// Edits left by an earlier run: r = restore, d = discard.
+    Recover(Box<Session>),
+    /// Replace an existing session file with this one?
+    OverwriteSession(PathBuf),
+    /// Replace an existing report file?
+    OverwriteExport(PathBuf),
+}
+
+/// What the screen is doing besides showing the panel.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Mode {
+    Normal,
+    Help { scroll: u16 },
+    Field(Field),
+    Ask(Question),
+}
+
+/// A message in the status line.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct Status {
+    pub text: String,
+    pub error: bool,
+}
+
+/// Cursor and search in the Point group panel.
+#[derive(Debug, Clone, Default)]
+pub struct GroupUi {
+    pub query: String,
+    pub typing: bool,
+    /// Index into the filtered list.
+    pub cursor: usize,
+    pub table_scroll: u16,
+}
+
+/// Cursor in the Members panel (also chooses the set the other panels show).
+#[derive(Debug, Clone, Default)]
+pub struct MembersUi {
+    pub set: usize,
+    pub row: usize,
+    pub col: usize,
+    /// First member row shown.
+    pub scroll: usize,
+}
+
+/// The whole workspace.
+pub struct App {
+    pub session: Session,
+    /// Where the session is saved; `None` for the demo and new sessions.
+    pub path: Option<PathBuf>,
+    /// The session as last saved or loaded.
+    pub saved: Session,
+    pub recovery: Recovery,
+    /// Generation of `session`: bumped by every edit.
+    pub gen: u64,
+    /// Generation the shown analysis belongs to, and its depth.
+    pub analysis_gen: u64,
+    pub analysis: Result<Arc<Analysis>, analysis::Error>,
+    pub catalogue: Vec<GroupEntry>,
+    pub panel: Panel,
+    pub mode: Mode,
+    pub status: Option<Status>,
+    pub group_ui: GroupUi,
+    pub members_ui: MembersUi,
+    /// Scroll of the text panels (Representation, Combinations, Spectra, Molecule).
+    pub scroll: u16,
+    pub undo: Vec<Session>,
+    pub redo: Vec<Session>,
+    pub ascii: bool,
+    pub color: bool,
+    pub quit: bool,
+    /// Generation last written to the recovery file.
+    pub autosaved_gen: u64,
+    /// Size of the last drawn frame (for paging and mouse hits).
+    pub screen: (u16, u16),
+}
+
+impl App {
+    /// A workspace on `session`, saved at `path` (or nowhere yet).
+    pub fn new(session: Session, path: Option<PathBuf>, ascii: bool, color: bool) -> Self {
+        let recovery = Recovery::for_session(path.as_deref());
+        let panel = if session.group.is_some() && !session.sets.is_empty() {
+            Panel::Members
+        } else {
+            Panel::Group
+        };
+        let mut app = App {
+            saved: session.clone(),
+            session,
+            path,
+            recovery,
+            gen: 0,
+            analysis_gen: 0,
+            analysis: Err(analysis::Error::NoGroup),
+            catalogue: Vec::new(),
+            panel,
+            mode: Mode::Normal,
+            status: None,
+            group_ui: GroupUi::default(),
+            members_ui: MembersUi::default(),
+            scroll: 0,
+            undo: Vec::new(),
+            redo: Vec::new(),
+            ascii,
+            color,
+            quit: false,
+            autosaved_gen: 0,
+            screen: (80, 24),
+        };
+        app.quick_analysis();
+        if let Some(rec) = app.recovery.pending(&app.session) {
+            app.mode = Mode::Ask(Question::Recover(Box::new(rec)));
+        }
+        app
+    }
+
+    /// Whether there are edits not yet saved.
+    pub fn dirty(&self) -> bool {
+        self.session != self.saved
+    }
+
+    /// Name to show for the session.
+    pub fn file_label(&self) -> String {
+        match &self.path {
+            Some(p) => p.display().to_string(),
+            None => format!("{} (demo, not saved)", session::DEMO_NAME),
+        }
+    }
+
+    /// The shown analysis is older than the session (the full one is still being computed).
+    pub fn analysis_pending(&self) -> bool {
+        match &self.analysis {
+            Ok(a) => self.analysis_gen != self.gen || a.depth != Depth::Full,
+            Err(_) => self.analysis_gen != self.gen,
+        }
+    }
+
+    /// Analyse at once, to the quick depth (fast enough for every keystroke).
+    pub fn quick_analysis(&mut self) {
+        self.analysis = analysis::analyze_to(&self.session, Depth::Quick).map(Arc::new);
+        self.analysis_gen = self.gen;
+        self.clamp_cursors();
+    }
+
+    /// Take a finished full analysis (from the background worker) if it is still current.
+    pub fn accept_analysis(&mut self, gen: u64, result: Result<Analysis, analysis::Error>) {
+        if gen == self.gen {
+            self.analysis = result.map(Arc::new);
+            self.analysis_gen = gen;
+            self.clamp_cursors();
+        }
+    }
+
+    /// Compute the full analysis here and now (tests; the terminal uses the worker).
+    pub fn finish_analysis(&mut self) {
+        let r = analysis::analyze(&self.session);
+        self.accept_analysis(self.gen, r);
+    }
+
+    /// Fill the group list (slow the first time: every table is loaded).
+    pub fn load_catalogue(&mut self) {
+        if self.catalogue.is_empty() {
+            self.catalogue = analysis::catalogue();
+        }
+    }
+
+    /// Groups matching the search, best first (customary order when not searching).
+    pub fn group_matches(&self) -> Vec<&GroupEntry> {
+        let q = self.group_ui.query.trim();
+        let mut v: Vec<(u32, usize, &GroupEntry)> = self
+            .catalogue
+            .iter()
+            .enumerate()
+            .filter_map(|(i, e)| analysis::fit(e, q).map(|s| (s, i, e)))
+            .collect();
+        v.sort_by(|a, b| b.0.cmp(&a.0).then(a.1.cmp(&b.1)));
+        v.into_iter().map(|(_, _, e)| e).collect()
+    }
+
+    fn status(&mut self, text: impl Into<String>) {
+        self.status = Some(Status {
+            text: text.into(),
+            error: false,
+        });
+    }
+    fn error(&mut self, text: impl Into<String>) {
+        self.status = Some(Status {
+            text: text.into(),
+            error: true,
+        });
+    }
+
+    /// Make an edit: remember the old session for undo, change, re-analyse.
+    fn edit(&mut self, f: impl FnOnce(&mut Session)) {
+        let before = self.session.clone();
+        f(&mut self.session);
+        if self.session == before {
+            return;
+        }
+        self.undo.push(before);
+        if self.undo.len() > UNDO_DEPTH {
+            self.undo.remove(0);
+        }
+        self.redo.clear();
+        self.changed();
+    }
+
+    fn changed(&mut self) {
+        self.gen += 1;
+        self.quick_analysis();
+    }
+
+    fn clamp_cursors(&mut self) {
+        let nsets = self.session.sets.len();
+        let m = &mut self.members_ui;
+        if m.set >= nsets {
+            m.set = nsets.saturating_sub(1);
+        }
+        let nrows = self
+            .session
+            .sets
+            .get(m.set)
+            .map(|s| s.members.len())
+            .unwrap_or(0);
+        if m.row >= nrows {
+            m.row = nrows.saturating_sub(1);
+        }
+        let ncols = self
+            .analysis
+            .as_ref()
+            .map(|a| a.group.table.classes.len())
+            .unwrap_or(1);
+        if m.col >= ncols {
+            m.col = ncols.saturating_sub(1);
+        }
+    }
+
+    /// The analysis of the set the cursor is in.
+    pub fn current_set(&self) -> Option<(&Analysis, &analysis::SetAnalysis)> {
+        let a = self.analysis.as_ref().ok()?;
+        let s = a.sets.get(self.members_ui.set)?;
+        Some((a, s))
+    }
+
+    /// Handle one key: text fields and questions take it first, then the key map.
+    pub fn handle_key(&mut self, key: Key) {
+        match self.mode.clone() {
+            Mode::Field(f) => return self.field_key(f, key),
+            Mode::Ask(q) => return self.answer(q, key),
+            Mode::Help { scroll } => {
+                let s = match key.code {
+                    Code::Down | Code::Char('j') => scroll.saturating_add(1),
+                    Code::Up | Code::Char('k') => scroll.saturating_sub(1),
+                    Code::PageDown => scroll.saturating_add(10),
+                    Code::PageUp => scroll.saturating_sub(10),
+                    _ => {
+                        self.mode = Mode::Normal;
+                        return;
+                    }
+                };
+                self.mode = Mode::Help { scroll: s };
+                return;
+            }
+            Mode::Normal => {}
+        }
+        if self.panel == Panel::Group && self.group_ui.typing {
+            match key.code {
+                Code::Char(c) if !key.ctrl => {
+                    self.group_ui.query.push(c);
+                    self.group_ui.cursor = 0;
+                    return;
+                }
+                Code::Backspace => {
+                    self.group_ui.query.pop();
+                    self.group_ui.cursor = 0;
+                    return;
+                }
+                Code::Esc => {
+                    self.group_ui.typing = false;
+                    self.group_ui.query.clear();
+                    return;
+                }
+                Code::Enter => {
+                    self.group_ui.typing = false;
+                    self.apply(Action::Enter);
+                    return;
+                }
+                _ => {}
+            }
+        }
+        if let Some(a) = keymap::lookup(key, self.panel) {
+            self.apply(a);
+        }
+    }
+
+    /// Carry out an action.
+    pub fn apply(&mut self, action: Action) {
+        if !matches!(
+            action,
+            Action::Click { .. } | Action::ScrollUp | Action::ScrollDown
+        ) {
+            self.status = None;
+        }
+        match action {
+            Action::NextPanel => self.go(self.panel.next()),
+            Action::PrevPanel => self.go(self.panel.prev()),
+            Action::GoPanel(p) => self.go(p),
+            Action::Up => self.move_by(0, -1),
+            Action::Down => self.move_by(0, 1),
+            Action::Left => self.move_by(-1, 0),
+            Action::Right => self.move_by(1, 0),
+            Action::PageUp => self.move_by(0, -(self.page() as i64)),
+            Action::PageDown => self.move_by(0, self.page() as i64),
+            Action::Home => self.move_by(0, -1_000_000),
+            Action::End => self.move_by(0, 1_000_000),
+            Action::ScrollUp => self.move_by(0, -3),
+            Action::ScrollDown => self.move_by(0, 3),
+            Action::Enter => match self.panel {
+                Panel::Group => self.choose_group(),
+                Panel::Members => self.toggle(),
+                _ => {}
+            },
+            Action::Toggle => {
+                if self.panel == Panel::Members {
+                    self.toggle()
+                }
+            }
+            Action::Search => {
+                self.go(Panel::Group);
+                self.group_ui.typing = true;
+                self.group_ui.query.clear();
+                self.group_ui.cursor = 0;
+            }
+            Action::Help => self.mode = Mode::Help { scroll: 0 },
+            Action::Quit => {
+                if self.dirty() {
+                    self.mode = Mode::Ask(Question::Quit);
+                } else {
+                    self.quit = true;
+                }
+            }
+            Action::Undo => match self.undo.pop() {
+                Some(s) => {
+                    self.redo.push(std::mem::replace(&mut self.session, s));
+                    self.changed();
+                    self.status("undone");
+                }
+                None => self.status("nothing to undo"),
+            },
+            Action::Redo => match self.redo.pop() {
+                Some(s) => {
+                    self.undo.push(std::mem::replace(&mut self.session, s));
+                    self.changed();
+                    self.status("redone");
+                }
+                None => self.status("nothing to redo"),
+            },
+            Action::Save => match self.path.clone() {
+                Some(p) => {
+                    self.save_to(&p);
+                }
+                None => self.ask_field(FieldPurpose::SaveAs, "Save as", "session.toml".into()),
+            },
+            Action::SaveAs => {
+                let d = self
+                    .path
+                    .as_ref()
+                    .map(|p| p.display().to_string())
+                    .unwrap_or_else(|| "session.toml".into());
+                self.ask_field(FieldPurpose::SaveAs, "Save as", d)
+            }
+            Action::Export => {
+                let stem = self
+                    .path
+                    .as_ref()
+                    .map(|p| p.with_extension("md").display().to_string())
+                    .unwrap_or_else(|| "report.md".into());
+                self.ask_field(
+                    FieldPurpose::Export,
+                    "Export report (.md .tex .json .txt)",
+                    stem,
+                )
+            }
+            Action::NextSet => self.switch_set(1),
+            Action::PrevSet => self.switch_set(-1),
+            Action::AddMember => self.add_member_prompt(),
+            Action::RemoveMember => self.remove_member(),
+            Action::RenameMember => {
+                if let Some(m) = self.cursor_member() {
+                    let name = m.name.clone();
+                    self.ask_field(FieldPurpose::RenameMember, "Rename member", name)
+                } else {
+                    self.status("this set has no members yet: a adds one")
+                }
+            }
+            Action::AddSet => {
+                let n = self.session.sets.len() + 1;
+                self.ask_field(
+                    FieldPurpose::AddSet,
+                    "Name of the new set",
+                    format!("Set {n}"),
+                )
+            }
+            Action::RemoveSet => self.remove_set(),
+            Action::RenameSet => match self.session.sets.get(self.members_ui.set) {
+                Some(s) => {
+                    let name = s.name.clone();
+                    self.ask_field(FieldPurpose::RenameSet, "Rename set", name)
+                }
+                None => self.status("no set yet: n starts one"),
+            },
+            Action::CycleKind => {
+                let i = self.members_ui.set;
+                if i < self.session.sets.len() {
+                    self.edit(|s| s.sets[i].kind = s.sets[i].kind.next());
+                    let k = self.session.sets[i].kind;
+                    self.status(format!("kind: {} — {}", k.name(), k.contribution()));
+                }
+            }
+            Action::Cancel => {
+                if self.group_ui.typing {
+                    self.group_ui.typing = false;
+                }
+                self.mode = Mode::Normal;
+            }
+            Action::Char(_) | Action::Backspace => {}
+            Action::Click { x, y } => super::ui::click(self, x, y),
+        }
+    }
+
+    fn go(&mut self, p: Panel) {
+        if self.panel != p {
+            self.scroll = 0;
+        }
+        self.panel = p;
+        if p == Panel::Group {
+            self.load_catalogue();
+            if let Some(g) = &self.session.group {
+                if self.group_ui.query.is_empty() {
+                    if let Some(i) = self.group_matches().iter().position(|e| &e.name == g) {
+                        self.group_ui.cursor = i;
+                    }
+                }
+            }
+        }
+    }
+
+    /// Rows that fit in one page of the body.
+    fn page(&self) -> usize {
+        (self.screen.1 as usize).saturating_sub(10).max(1)
+    }
+
+    fn move_by(&mut self, dx: i64, dy: i64) {
+        let clampi = |v: i64, n: usize| -> usize {
+            if n == 0 {
+                0
+            } else {
+                v.clamp(0, n as i64 - 1) as usize
+            }
+        };
+        match self.panel {
+            Panel::Group => {
+                if dx != 0 {
+                    self.group_ui.table_scroll =
+                        (self.group_ui.table_scroll as i64 + dx).clamp(0, 200) as u16;
+                    return;
+                }
+                let n = self.group_matches().len();
+                self.group_ui.cursor = clampi(self.group_ui.cursor as i64 + dy, n);
+            }
+            Panel::Members => {
+                let nrows = self
+                    .session
+                    .sets
+                    .get(self.members_ui.set)
+                    .map(|s| s.members.len())
+                    .unwrap_or(0);
+                let ncols = self
+                    .analysis
+                    .as_ref()
+                    .map(|a| a.group.table.classes.len())
+                    .unwrap_or(0);
+                self.members_ui.row = clampi(self.members_ui.row as i64 + dy, nrows);
+                self.members_ui.col = clampi(self.members_ui.col as i64 + dx, ncols);
+            }
+            _ => {
+                self.scroll = (self.scroll as i64 + dy).clamp(0, 10_000) as u16;
+            }
+        }
+    }
+
+    fn switch_set(&mut self, d: i64) {
+        let n = self.session.sets.len();
+        if n == 0 {
+            self.status("no member sets yet: n in the Members panel starts one");
+            return;
+        }
+        self.members_ui.set = ((self.members_ui.set as i64 + d).rem_euclid(n as i64)) as usize;
+        self.members_ui.row = 0;
+        self.members_ui.scroll = 0;
+        self.clamp_cursors();
+        let name = self.session.sets[self.members_ui.set].name.clone();
+        self.status(format!("set {}/{}: {name}", self.members_ui.set + 1, n));
+    }
+
+    fn choose_group(&mut self) {
+        let Some(entry) = self
+            .group_matches()
+            .get(self.group_ui.cursor)
+            .map(|e| (*e).clone())
+        else {
+            self.status("no group matches the search");
+            return;
+        };
+        if self.session.group.as_deref() == Some(entry.name.as_str()) {
+            self.status(format!(
+                "{} is already the group of this session",
+                entry.name
+            ));
+            return;
+        }
+        let new_group = match crate::group::load(&entry.name) {
+            Ok(g) => g,
+            Err(e) => return self.error(e.to_string()),
+        };
+        let mut dropped = 0usize;
+        self.edit(|s| {
+            s.group = Some(entry.name.clone());
+            for set in &mut s.sets {
+                for m in &mut set.members {
+                    let before = m.unmoved_by.len();
+                    m.unmoved_by.retain(|c| {
+                        new_group.table.classes.iter().any(|k| &k.ascii == c) || c == "E"
+                    });
+                    dropped += before - m.unmoved_by.len();
+                }
+            }
+        });
+        self.group_ui.query.clear();
+        self.group_ui.typing = false;
+        if let Some(i) = self
+            .group_matches()
+            .iter()
+            .position(|e| e.name == entry.name)
+        {
+            self.group_ui.cursor = i;
+        }
+        let extra = if dropped > 0 {
+            format!(
+                "; {dropped} tick(s) on classes {} does not have were cleared (u undoes)",
+                entry.name
+            )
+        } else {
+            String::new()
+        };
+        self.status(format!("group: {}{extra}", entry.name));
+    }
+
+    fn cursor_member(&self) -> Option<&Member> {
+        self.session
+            .sets
+            .get(self.members_ui.set)?
+            .members
+            .get(self.members_ui.row)
+    }
+
+    /// Tick or untick the cell under the cursor.
+    pub fn toggle(&mut self) {
+        let Ok(a) = self.analysis.clone() else {
+            return self.error("choose a point group first (Point group panel, Enter)");
+        };
+        let (si, mi, ci) = (
+            self.members_ui.set,
+            self.members_ui.row,
+            self.members_ui.col,
+        );
+        if self.cursor_member().is_none() {
+            return self.status("this set has no members yet: a adds one");
+        }
+        let t = &a.group.table;
+        let Some(class) = t.classes.get(ci) else {
+            return;
+        };
+        if class.ascii == "E" {
+            return self.status("E leaves every member in place: that tick is always there");
+        }
+        let ascii = class.ascii.clone();
+        self.edit(|s| {
+            let m = &mut s.sets[si].members[mi];
+            let had = m
+                .unmoved_by
+                .iter()
+                .any(|c| analysis::resolve_class(t, c) == Some(ci));
+            if had {
+                m.unmoved_by
+                    .retain(|c| analysis::resolve_class(t, c) != Some(ci));
+            } else {
+                m.unmoved_by.push(ascii);
+            }
+            // Keep ticks in table order (unknown names last) so files stay tidy.
+            m.unmoved_by
+                .sort_by_key(|c| analysis::resolve_class(t, c).unwrap_or(usize::MAX));
+        });
+    }
+
+    fn add_member_prompt(&mut self) {
+        if self.session.sets.is_empty() {
+            self.edit(|s| {
+                s.sets.push(MemberSet {
+                    name: "Set 1".into(),
+                    kind: SetKind::Stretch,
+                    members: Vec::new(),
+                })
+            });
+            self.members_ui.set = 0;
+        }
+        let set = &self.session.sets[self.members_ui.set];
+        let name = next_name(set);
+        self.ask_field(FieldPurpose::AddMember, "Name of the new member", name);
+    }
+
+    fn remove_member(&mut self) {
+        let (si, mi) = (self.members_ui.set, self.members_ui.row);
+        let Some(name) = self.cursor_member().map(|m| m.name.clone()) else {
+            return self.status("no member to remove");
+        };
+        self.edit(|s| {
+            s.sets[si].members.remove(mi);
+        });
+        self.clamp_cursors();
+        self.status(format!("removed {name} (u brings it back)"));
+    }
+
+    fn remove_set(&mut self) {
+        let si = self.members_ui.set;
+        let Some(name) = self.session.sets.get(si).map(|s| s.name.clone()) else {
+            return self.status("no set to delete");
+        };
+        self.edit(|s| {
+            s.sets.remove(si);
+        });
+        self.clamp_cursors();
+        self.status(format!("deleted set {name} (u brings it back)"));
+    }
+
+    fn ask_field(&mut self, purpose: FieldPurpose, label: &str, text: String) {
+        self.mode = Mode::Field(Field {
+            purpose,
+            label: label.into(),
+            text,
+        });
+    }
+
+    fn field_key(&mut self, mut f: Field, key: Key) {
+        match key.code {
+            Code::Esc => {
+                self.mode = Mode::Normal;
+                self.status("left unchanged");
+            }
+            Code::Enter => {
+                self.mode = Mode::Normal;
+                self.field_done(f);
+            }
+            Code::Backspace => {
+                f.text.pop();
+                self.mode = Mode::Field(f);
+            }
+            Code::Char('u') if key.ctrl => {
+                f.text.clear();
+                self.mode = Mode::Field(f);
+            }
+            Code::Char(c) if !key.ctrl => {
+                f.text.push(c);
+                self.mode = Mode::Field(f);
+            }
+            _ => self.mode = Mode::Field(f),
+        }
+    }
+
+    fn field_done(&mut self, f: Field) {
+        let text = f.text.trim().to_string();
+        if text.is_empty() {
+            return self.status("empty: nothing done");
+        }
+        let si = self.members_ui.set;
+        match f.purpose {
+            FieldPurpose::SaveAs => {
+                let p = PathBuf::from(&text);
+                if Some(&p) == self.path.as_ref() {
+                    self.save_to(&p);
+                    return;
+                }
+                match check_save_target(&p) {
+                    Ok(SaveTarget::New) => {
+                        self.save_to(&p);
+                    }
+                    Ok(SaveTarget::ExistingSession) => {
+                        self.mode = Mode::Ask(Question::OverwriteSession(p))
+                    }
+                    Err(e) => self.error(e.to_string()),
+                }
+            }
+            FieldPurpose::Export => {
+                let p = PathBuf::from(&text);
+                if p.extension().and_then(|e| e.to_str()) == Some("toml") {
+                    return self.error("a report is not a session: use .md, .tex, .json or .txt");
+                }
+                if p.exists() {
+                    self.mode = Mode::Ask(Question::OverwriteExport(p));
+                } else {
+                    self.export_to(&p);
+                }
+            }
+            FieldPurpose::AddMember => {
+                if self.session.sets[si].members.iter().any(|m| m.name == text) {
+                    return self.error(format!("there is already a member called {text}"));
+                }
+                self.edit(|s| s.sets[si].members.push(Member::new(text.clone())));
+                self.members_ui.row = self.session.sets[si].members.len() - 1;
+                self.status(format!(
+                    "added {text}; Space ticks the classes that leave it in place"
+                ));
+            }
+            FieldPurpose::RenameMember => {
+                let mi = self.members_ui.row;
+                let set = &self.session.sets[si];
+                if set
+                    .members
+                    .iter()
+                    .enumerate()
+                    .any(|(k, m)| k != mi && m.name == text)
+                {
+                    return self.error(format!("there is already a member called {text}"));
+                }
+                self.edit(|s| s.sets[si].members[mi].name = text.clone());
+            }
+            FieldPurpose::AddSet => {
+                self.edit(|s| {
+                    s.sets.push(MemberSet {
+                        name: text.clone(),
+                        kind: SetKind::Stretch,
+                        members: Vec::new(),
+                    })
+                });
+                self.members_ui.set = self.session.sets.len() - 1;
+                self.members_ui.row = 0;
+                self.status(format!(
+                    "new set {text} (kind stretch; t changes it); a adds members"
+                ));
+            }
+            FieldPurpose::RenameSet => {
+                self.edit(|s| s.sets[si].name = text.clone());
+            }
+        }
+    }
+
+    fn answer(&mut self, q: Question, key: Key) {
+        let c = match key.code {
+            Code::Char(c) => c.to_ascii_lowercase(),
+            Code::Esc => '\u{1b}',
+            Code::Enter => '\n',
+            _ => return,
+        };
+        self.mode = Mode::Normal;
+        match (q, c) {
+            (Question::Quit, 's' | 'y') => {
+                let ok = match self.path.clone() {
+                    Some(p) => self.save_to(&p),
+                    None => {
+                        self.ask_field(FieldPurpose::SaveAs, "Save as", "session.toml".into());
+                        false
+                    }
+                };
+                if ok {
+                    self.quit = true;
+                }
+            }
+            (Question::Quit, 'd') => {
+                self.recovery.clear();
+                self.quit = true;
+            }
+            (Question::Quit, 'n' | '\u{1b}') => self.status("not quitting"),
+            (Question::Recover(s), 'r' | 'y') => {
+                let before = std::mem::replace(&mut self.session, *s);
+                self.undo.push(before);
+                self.changed();
+                self.status("restored the unsaved edits of the earlier run (s saves them)");
+            }
+            (Question::Recover(_), 'd') => {
+                self.recovery.clear();
+                self.status("discarded the edits of the earlier run");
+            }
+            (Question::Recover(_), 'n' | '\u{1b}') => {
+                self.status("kept the recovery file for later; opening the saved session")
+            }
+            (Question::OverwriteSession(p), 'y') => {
+                self.save_to(&p);
+            }
+            (Question::OverwriteExport(p), 'y') => self.export_to(&p),
+            (Question::OverwriteSession(_) | Question::OverwriteExport(_), 'n' | '\u{1b}') => {
+                self.status("not written")
+            }
+            (q, _) => self.mode = Mode::Ask(q),
+        }
+    }
+
+    /// Save atomically; on success the path becomes the session's home. Returns success.
+    pub fn save_to(&mut self, p: &Path) -> bool {
+        match session::save(&self.session, p) {
+            Ok(()) => {
+                if self.path.as_deref() != Some(p) {
+                    self.recovery.clear();
+                    self.recovery = Recovery::for_session(Some(p));
+                }
+                self.recovery.clear();
+                self.path = Some(p.to_path_buf());
+                self.saved = self.session.clone();
+                self.autosaved_gen = self.gen;
+                self.status(format!("saved {}", p.display()));
+                true
+            }
+            Err(e) => {
+                self.error(format!("not saved: {e}"));
+                false
+            }
+        }
+    }
+
+    fn export_to(&mut self, p: &Path) {
+        let fmt = match p.extension().and_then(|e| e.to_str()).unwrap_or("") {
+            "tex" => Format::Latex,
+            "json" => Format::Json,
+            "txt" => Format::Text,
+            _ => Format::Markdown,
+        };
+        let r = analysis::analyze(&self.session);
+        let text = session_report::render(&self.session, &r, fmt, self.ascii);
+        match session::write_atomic(p, &text) {
+            Ok(()) => self.status(format!("report written to {}", p.display())),
+            Err(e) => self.error(format!("report not written: {e}")),
+        }
+    }
+
+    /// Write the unsaved edits aside if they changed since the last time.
+    pub fn autosave(&mut self) {
+        if self.autosaved_gen == self.gen {
+            return;
+        }
+        self.autosaved_gen = self.gen;
+        if !self.dirty() {
+            self.recovery.clear();
+            return;
+        }
+        if let Err(e) = self.recovery.write(&self.session) {
+            self.error(format!("could not write the recovery file: {e}"));
+        }
+    }
+}
+
+/// A fresh member name following the set's pattern (`r6` → `r7`).
+fn next_name(set: &MemberSet) -> String {
+    let base = set
+        .members
+        .last()
+        .map(|m| {
+            m.name
+                .trim_end_matches(|c: char| c.is_ascii_digit())
+                .to_string()
+        })
+        .filter(|b| !b.is_empty())
+        .unwrap_or_else(|| match set.kind {
+            SetKind::Cartesian | SetKind::Axial => "A".into(),
+            SetKind::Pi => "L".into(),
+            SetKind::Bend => "a".into(),
+            _ => "r".into(),
+        });
+    (1..)
+        .map(|k| format!("{base}{k}"))
+        .find(|n| !set.members.iter().any(|m| &m.name == n))
+        .unwrap_or_else(|| "member".into())
+}

@@ -1,0 +1,45 @@
+//! One file per panel (and the help overlay). Each `draw` is a pure function of the state.
+
+pub mod combinations;
+pub mod group;
+pub mod help;
+pub mod members;
+pub mod molecule;
+pub mod representation;
+pub mod spectra;
+
+use super::text::ascii_fold;
+use super::theme::Theme;
+use ratatui::text::{Line, Span};
+use ratatui::widgets::Block;
+
+/// The frame around a panel.
+pub fn block<'a>(title: &str, th: &Theme) -> Block<'a> {
+    Block::bordered()
+        .border_set(th.border_set())
+        .border_style(th.border())
+        .title(Span::styled(format!(" {title} "), th.title()))
+}
+
+/// A line of text in a style, folded to ASCII when the theme asks for it.
+pub fn styled(s: &str, style: ratatui::style::Style, th: &Theme) -> Line<'static> {
+    Line::from(Span::styled(fold(s, th), style))
+}
+
+/// ASCII-fold our own wording in ASCII mode.
+pub fn fold(s: &str, th: &Theme) -> String {
+    if th.ascii {
+        ascii_fold(s)
+    } else {
+        s.to_string()
+    }
+}
+
+/// Lines saying plainly that a layer is not in this build.
+pub fn missing_layer(what: &str, th: &Theme, width: usize) -> Vec<Line<'static>> {
+    let mut out = vec![styled("Not in this build yet", th.missing(), th)];
+    for l in super::text::wrap(&format!("{what}."), width) {
+        out.push(styled(&l, th.missing(), th));
+    }
+    out
+}

@@ -1,0 +1,105 @@
+//! Small text helpers for drawing: display width, padding, truncation, wrapping.
+
+use ratatui::text::Span;
+
+/// Columns a string takes on screen.
+pub fn width(s: &str) -> usize {
+    Span::raw(s).width()
+}
+
+/// Pad on the right to `w` columns (or cut to fit).
+pub fn pad(s: &str, w: usize) -> String {
+    let t = trunc(s, w);
+    let n = width(&t);
+    format!("{t}{}", " ".repeat(w.saturating_sub(n)))
+}
+
+/// Pad on the left to `w` columns (numbers in a column).
+pub fn pad_left(s: &str, w: usize) -> String {
+    let t = trunc(s, w);
+    let n = width(&t);
+    format!("{}{t}", " ".repeat(w.saturating_sub(n)))
+}
+
+/// Cut to at most `w` columns, marking the cut with `…` (or `~` in ASCII mode callers pass).
+pub fn trunc(s: &str, w: usize) -> String {
+    if width(s) <= w {
+        return s.to_string();
+    }
+    if w == 0 {
+        return String::new();
+    }
+    let mut out = String::new();
+    for c in s.chars() {
+        let next = format!("{out}{c}");
+        if width(&next) + 1 > w {
+            break;
+        }
+        out = next;
+    }
+    out.push('~');
+    out
+}
+
+/// Greedy word wrap to `w` columns.
+pub fn wrap(s: &str, w: usize) -> Vec<String> {
+    let w = w.max(8);
+    let mut out = Vec::new();
+    for para in s.split('\n') {
+        let mut line = String::new();
+        for word in para.split_whitespace() {
+            if !line.is_empty() && width(&line) + 1 + width(word) > w {
+                out.push(std::mem::take(&mut line));
+            }
+            if !line.is_empty() {
+                line.push(' ');
+            }
+            line.push_str(word);
+        }
+        out.push(line);
+    }
+    out
+}
+
+/// Spell our own wording and the tables' prose in ASCII (ASCII mode); anything left that is
+/// not ASCII becomes `?`, so a limited terminal never sees a byte it cannot show.
+pub fn ascii_fold(s: &str) -> String {
+    let mut o = String::with_capacity(s.len());
+    for c in s.chars() {
+        match c {
+            c if c.is_ascii() => o.push(c),
+            '—' | '–' | '−' | '⁻' => o.push('-'),
+            '…' => o.push_str("..."),
+            'χ' => o.push_str("chi"),
+            'Γ' => o.push_str("Gamma"),
+            '·' => o.push('*'),
+            '×' => o.push('x'),
+            '°' => o.push_str(" deg"),
+            'θ' => o.push_str("theta"),
+            'φ' => o.push_str("phi"),
+            'σ' => o.push('s'),
+            'π' => o.push_str("pi"),
+            'Σ' => o.push_str("Sum"),
+            'Å' => o.push('A'),
+            '→' => o.push_str("->"),
+            '←' => o.push_str("<-"),
+            '↑' => o.push_str("Up"),
+            '↓' => o.push_str("Down"),
+            '≥' => o.push_str(">="),
+            '≤' => o.push_str("<="),
+            '√' => o.push_str("sqrt"),
+            '∞' => o.push_str("inf"),
+            '′' => o.push('\''),
+            '″' => o.push_str("''"),
+            '▸' => o.push('>'),
+            'ᵥ' => o.push('v'),
+            'ₕ' => o.push('h'),
+            '₀'..='₉' => o.push(char::from(b'0' + (c as u32 - '₀' as u32) as u8)),
+            '¹' => o.push('1'),
+            '²' => o.push_str("^2"),
+            '³' => o.push_str("^3"),
+            _ => o.push('?'),
+        }
+    }
+    o
+}

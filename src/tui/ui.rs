@@ -1,0 +1,305 @@
+//! The screen as a pure function of the state: title bar, panel tabs, the panel, the status
+//! line and the key footer; the help overlay and questions on top. The same layout functions
+//! serve mouse clicks, so a click always lands on what is drawn there.
+
+use super::action::Panel;
+use super::app::{App, Mode, Question};
+use super::keymap;
+use super::panels;
+use super::text::{ascii_fold, trunc, width};
+use super::theme::Theme;
+use ratatui::layout::Rect;
+use ratatui::text::{Line, Span};
+use ratatui::widgets::{Block, Clear, Paragraph, Wrap};
+use ratatui::Frame;
+
+/// The fixed parts of the screen.
+#[derive(Debug, Clone, Copy)]
+pub struct Areas {
+    pub title: Rect,
+    pub tabs: Rect,
+    pub body: Rect,
+    pub status: Rect,
+    pub footer: Rect,
+}
+
+/// Split the screen.
+pub fn areas(size: Rect) -> Areas {
+    let h = size.height;
+    let row = |y: u16, hh: u16| {
+        Rect::new(
+            size.x,
+            size.y + y.min(h),
+            size.width,
+            hh.min(h.saturating_sub(y)),
+        )
+    };
+    let body_h = h.saturating_sub(4);
+    Areas {
+        title: row(0, 1),
+        tabs: row(1, 1),
+        body: row(2, body_h),
+        status: row(2 + body_h, 1),
+        footer: row(3 + body_h, 1),
+    }
+}
+
+/// The theme the state asks for.
+pub fn theme(app: &App) -> Theme {
+    Theme::new(app.color, app.ascii)
+}
+
+/// Text of each tab and where it sits: (panel, x from, x to).
+pub fn tab_ranges(app: &App, area: Rect) -> Vec<(Panel, u16, u16)> {
+    let mut x = area.x;
+    let mut out = Vec::new();
+    for p in Panel::ALL {
+        let t = tab_text(p, area.width);
+        let w = width(&t) as u16;
+        out.push((p, x, x + w));
+        x += w + 1;
+    }
+    let _ = app;
+    out
+}
+
+/// A tab's text: padded when there is room.
+fn tab_text(p: Panel, w: u16) -> String {
+    if w >= 90 {
+        format!(" {} {} ", p.index() + 1, p.title())
+    } else {
+        format!("{} {}", p.index() + 1, p.title())
+    }
+}
+
+/// Draw everything.
+pub fn draw(f: &mut Frame, app: &App) {
+    let th = theme(app);
+    let a = areas(f.area());
+    title_bar(f, a.title, app, &th);
+    tabs(f, a.tabs, app, &th);
+    match app.panel {
+        Panel::Group => panels::group::draw(f, a.body, app, &th),
+        Panel::Members => panels::members::draw(f, a.body, app, &th),
+        Panel::Representation => panels::representation::draw(f, a.body, app, &th),
+        Panel::Combinations => panels::combinations::draw(f, a.body, app, &th),
+        Panel::Spectra => panels::spectra::draw(f, a.body, app, &th),
+        Panel::Molecule => panels::molecule::draw(f, a.body, app, &th),
+    }
+    status_line(f, a.status, app, &th);
+    footer(f, a.footer, app, &th);
+    match &app.mode {
+        Mode::Help { scroll } => panels::help::draw(f, a.body, app, &th, *scroll),
+        Mode::Ask(q) => question(f, a.body, app, q, &th),
+        _ => {}
+    }
+    if th.ascii {
+        ascii_only(f);
+    }
+}
+
+/// The ASCII safety net: whatever slipped through (a member name in Greek, a title with a
+/// dash) is shown as its one-character ASCII spelling or `?`.
+fn ascii_only(f: &mut Frame) {
+    for cell in f.buffer_mut().content.iter_mut() {
+        if !cell.symbol().is_ascii() {
+            let folded = ascii_fold(cell.symbol());
+            let c = folded.chars().next().unwrap_or('?');
+            cell.set_char(c);
+        }
+    }
+}
+
+fn title_bar(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
+    let title = if app.session.title.is_empty() {
+        "untitled session".to_string()
+    } else {
+        app.session.title.clone()
+    };
+    let group = app
+        .session
+        .group
+        .clone()
+        .unwrap_or_else(|| "no group".into());
+    let modified = if app.dirty() { " [modified]" } else { "" };
+    let file = match &app.path {
+        Some(p) => p
+            .file_name()
+            .map(|n| n.to_string_lossy().to_string())
+            .unwrap_or_default(),
+        None => "demo, not saved".into(),
+    };
+    let right = format!(" {group} {} {file}{modified} ", th.pick("·", "|"));
+    let right = if th.ascii { ascii_fold(&right) } else { right };
+    let left = " salcdesk ";
+    let room = (area.width as usize).saturating_sub(width(left) + width(&right) + 1);
+    let title = if th.ascii { ascii_fold(&title) } else { title };
+    let mid = trunc(&title, room);
+    let gap = (area.width as usize).saturating_sub(width(left) + width(&mid) + width(&right));
+    let line = Line::from(vec![
+        Span::styled(left, th.title()),
+        Span::raw(mid),
+        Span::raw(" ".repeat(gap)),
+        Span::styled(trunc(&right, area.width as usize), th.dim()),
+    ]);
+    f.render_widget(Paragraph::new(line), area);
+}
+
+fn tabs(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
+    let mut spans = Vec::new();
+    for (i, (p, _, _)) in tab_ranges(app, area).into_iter().enumerate() {
+        if i > 0 {
+            spans.push(Span::styled(th.pick("│", "|"), th.dim()));
+        }
+        let t = tab_text(p, area.width);
+        let st = if p == app.panel {
+            th.tab_active()
+        } else {
+            th.tab()
+        };
+        spans.push(Span::styled(t, st));
+    }
+    f.render_widget(Paragraph::new(Line::from(spans)), area);
+}
+
+fn status_line(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
+    let line = match &app.mode {
+        Mode::Field(fl) => Line::from(vec![
+            Span::styled(format!("{}: ", fl.label), th.key()),
+            Span::raw(fl.text.clone()),
+            Span::styled(th.pick("█", "_"), th.key()),
+            Span::styled("   Enter accepts, Esc leaves", th.dim()),
+        ]),
+        _ => match &app.status {
+            Some(s) => {
+                let t = if th.ascii {
+                    ascii_fold(&s.text)
+                } else {
+                    s.text.clone()
+                };
+                Line::from(Span::styled(
+                    trunc(&t, area.width as usize),
+                    if s.error { th.error() } else { th.warn() },
+                ))
+            }
+            None if app.analysis_pending() => {
+                Line::from(Span::styled(th.pick(" working…", " working..."), th.dim()))
+            }
+            None => Line::raw(""),
+        },
+    };
+    f.render_widget(Paragraph::new(line), area);
+}
+
+fn footer(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
+    let mut spans = Vec::new();
+    let mut used = 0usize;
+    let entries: Vec<(String, &str)> = if app.panel == Panel::Group && app.group_ui.typing {
+        vec![
+            ("type".into(), "find"),
+            ("Enter".into(), "use group"),
+            ("Esc".into(), "stop"),
+        ]
+    } else {
+        keymap::footer(app.panel, th.ascii)
+    };
+    for (k, words) in entries {
+        let piece = format!(" {k} {words} ");
+        let w = width(&piece);
+        if used + w > area.width as usize {
+            break;
+        }
+        used += w;
+        spans.push(Span::styled(format!(" {k}"), th.key()));
+        spans.push(Span::raw(format!(" {words} ")));
+    }
+    f.render_widget(Paragraph::new(Line::from(spans)), area);
+}
+
+/// A rectangle of at most `w`×`h` centred in `area`.
+pub fn centered(area: Rect, w: u16, h: u16) -> Rect {
+    let w = w.min(area.width);
+    let h = h.min(area.height);
+    Rect::new(
+        area.x + (area.width - w) / 2,
+        area.y + (area.height - h) / 2,
+        w,
+        h,
+    )
+}
+
+fn question(f: &mut Frame, area: Rect, app: &App, q: &Question, th: &Theme) {
+    let (title, body, keys): (&str, String, &str) = match q {
+        Question::Quit => (
+            "Unsaved edits",
+            "This session has edits that are not saved.".into(),
+            "s save and quit · d discard and quit · Esc stay",
+        ),
+        Question::Recover(_) => (
+            "Unsaved edits found",
+            format!(
+                "An earlier run left unsaved edits of this session in {}.",
+                app.recovery.path.display()
+            ),
+            "r restore them · d discard them · Esc decide later",
+        ),
+        Question::OverwriteSession(p) => (
+            "Replace?",
+            format!(
+                "{} is another session. Replace it with this one?",
+                p.display()
+            ),
+            "y replace · n keep it",
+        ),
+        Question::OverwriteExport(p) => (
+            "Replace?",
+            format!("{} exists. Replace it with the new report?", p.display()),
+            "y replace · n keep it",
+        ),
+    };
+    let keys = if th.ascii {
+        ascii_fold(keys).replace('*', "|")
+    } else {
+        keys.to_string()
+    };
+    let r = centered(area, 64, 7);
+    f.render_widget(Clear, r);
+    let block = Block::bordered()
+        .border_set(th.border_set())
+        .border_style(th.border_focus())
+        .title(Span::styled(format!(" {title} "), th.heading()));
+    let text = vec![
+        Line::raw(body),
+        Line::raw(""),
+        Line::from(Span::styled(keys, th.key())),
+    ];
+    f.render_widget(
+        Paragraph::new(text).block(block).wrap(Wrap { trim: true }),
+        r,
+    );
+}
+
+/// What a click at (x, y) does: switch tab, move the cursor, tick a cell, pick a group.
+pub fn click(app: &mut App, x: u16, y: u16) {
+    if !matches!(app.mode, Mode::Normal) {
+        return;
+    }
+    let size = Rect::new(0, 0, app.screen.0, app.screen.1);
+    let a = areas(size);
+    if y == a.tabs.y {
+        if let Some((p, _, _)) = tab_ranges(app, a.tabs)
+            .into_iter()
+            .find(|(_, x0, x1)| x >= *x0 && x < *x1)
+        {
+            app.apply(super::action::Action::GoPanel(p));
+        }
+        return;
+    }
+    if y >= a.body.y && y < a.body.y + a.body.height {
+        match app.panel {
+            Panel::Members => panels::members::click(app, a.body, x, y),
+            Panel::Group => panels::group::click(app, a.body, x, y),
+            _ => {}
+        }
+    }
+}

@@ -1,0 +1,94 @@
+//! Every panel of the workspace on the demo session, drawn with ratatui's TestBackend at
+//! 80×24 and 120×40, in Unicode and in ASCII: insta snapshots (review the `.snap` files by
+//! reading them). Also the help overlay and the quit question.
+
+use ratatui::backend::TestBackend;
+use ratatui::Terminal;
+use salcdesk::session;
+use salcdesk::tui::app::{Mode, Question};
+use salcdesk::tui::{ui, Action, App, Panel};
+
+fn app(ascii: bool) -> App {
+    std::env::set_var(
+        "SALCDESK_CACHE_DIR",
+        std::env::temp_dir().join(format!("salcdesk-snap-cache-{}", std::process::id())),
+    );
+    let mut a = App::new(session::demo(), None, ascii, false);
+    a.load_catalogue();
+    a.finish_analysis();
+    a
+}
+
+fn screen(app: &mut App, w: u16, h: u16) -> String {
+    app.screen = (w, h);
+    let mut t = Terminal::new(TestBackend::new(w, h)).unwrap();
+    t.draw(|f| ui::draw(f, app)).unwrap();
+    let buf = t.backend().buffer().clone();
+    let mut out = String::new();
+    for y in 0..h {
+        let mut line = String::new();
+        for x in 0..w {
+            line.push_str(buf[(x, y)].symbol());
+        }
+        out.push_str(line.trim_end());
+        out.push('\n');
+    }
+    out
+}
+
+fn slug(p: Panel) -> &'static str {
+    match p {
+        Panel::Group => "group",
+        Panel::Members => "members",
+        Panel::Representation => "representation",
+        Panel::Combinations => "combinations",
+        Panel::Spectra => "spectra",
+        Panel::Molecule => "molecule",
+    }
+}
+
+#[test]
+fn every_panel_at_both_sizes_in_both_modes() {
+    for ascii in [false, true] {
+        let mut a = app(ascii);
+        for p in Panel::ALL {
+            a.apply(Action::GoPanel(p));
+            for (w, h) in [(80, 24), (120, 40)] {
+                let name = format!(
+                    "{}_{}x{}_{}",
+                    slug(p),
+                    w,
+                    h,
+                    if ascii { "ascii" } else { "unicode" }
+                );
+                let s = screen(&mut a, w, h);
+                if ascii {
+                    assert!(s.is_ascii(), "{name} has non-ASCII text:\n{s}");
+                }
+                insta::assert_snapshot!(name, s);
+            }
+        }
+    }
+}
+
+#[test]
+fn an_impossible_character_shows_the_error_and_the_suggestions() {
+    let mut a = app(false);
+    a.apply(Action::GoPanel(Panel::Members));
+    a.apply(Action::Right);
+    a.apply(Action::Right);
+    a.apply(Action::Right);
+    a.apply(Action::Toggle); // r1 under 6C4: χ(C4) 2 → 3
+    a.finish_analysis();
+    a.apply(Action::GoPanel(Panel::Representation));
+    insta::assert_snapshot!("representation_impossible_120x40", screen(&mut a, 120, 40));
+}
+
+#[test]
+fn the_help_overlay_and_the_quit_question() {
+    let mut a = app(false);
+    a.apply(Action::Help);
+    insta::assert_snapshot!("help_120x40", screen(&mut a, 120, 40));
+    a.mode = Mode::Ask(Question::Quit);
+    insta::assert_snapshot!("quit_question_80x24", screen(&mut a, 80, 24));
+}

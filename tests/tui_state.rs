@@ -1,0 +1,255 @@
+//! The workspace state driven by keys and actions, no terminal: ticking a cell changes Γ and
+//! the worked reduction as a hand calculation says; undo/redo, group changes, saving, quitting,
+//! recovery, search, mouse clicks; and the key map documents every binding it has.
+
+use salcdesk::analysis::Outcome;
+use salcdesk::rep::format_sum;
+use salcdesk::session::{self, Recovery};
+use salcdesk::tui::app::{Mode, Question};
+use salcdesk::tui::keymap::{self, Code, Key};
+use salcdesk::tui::{Action, App, Panel};
+use std::path::{Path, PathBuf};
+
+fn tmpdir(name: &str) -> PathBuf {
+    let d = std::env::temp_dir().join(format!("salcdesk-state-{name}-{}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&d);
+    std::fs::create_dir_all(&d).unwrap();
+    std::env::set_var(
+        "SALCDESK_CACHE_DIR",
+        std::env::temp_dir().join(format!("salcdesk-state-cache-{}", std::process::id())),
+    );
+    d
+}
+
+/// The puzzle session copied to a folder of its own, opened.
+fn puzzle(name: &str) -> (App, PathBuf) {
+    let dir = tmpdir(name);
+    let p = dir.join("puzzle.toml");
+    std::fs::copy(
+        Path::new(env!("CARGO_MANIFEST_DIR")).join("sessions/degenerate-puzzle.toml"),
+        &p,
+    )
+    .unwrap();
+    let s = session::load_file(&p).unwrap();
+    let mut app = App::new(s, Some(p.clone()), false, false);
+    app.finish_analysis();
+    (app, p)
+}
+
+fn keys(app: &mut App, ks: &[Key]) {
+    for k in ks {
+        app.handle_key(*k);
+    }
+}
+
+fn gamma(app: &App) -> Option<String> {
+    let (a, s) = app.current_set()?;
+    s.multiplicities().map(|m| format_sum(&a.group, m, false))
+}
+
+#[test]
+fn ticking_the_missing_mirror_makes_the_stretches_a1_plus_e() {
+    // Hand calculation (C3v, h = 6; Cotton, 3rd ed., §4.3 reduction formula): χ = (3, 0, 1)
+    // n(A1) = (3 + 0 + 3)/6 = 1, n(A2) = (3 + 0 − 3)/6 = 0, n(E) = (6 + 0 + 0)/6 = 1.
+    let (mut app, _) = puzzle("tick");
+    assert_eq!(app.panel, Panel::Members);
+    assert_eq!(gamma(&app), None, "the puzzle starts impossible");
+    keys(&mut app, &[Key::ch('l'), Key::ch('l'), Key::ch(' ')]);
+    let (_, s) = app.current_set().unwrap();
+    assert_eq!(s.unmoved, vec![3, 0, 1]);
+    assert_eq!(gamma(&app).as_deref(), Some("A1 + E"));
+    match &*s.outcome {
+        Outcome::Finite { reduction, .. } => {
+            let v: Vec<String> = reduction
+                .lines
+                .iter()
+                .map(|l| l.value.text(Default::default()))
+                .collect();
+            assert_eq!(v, vec!["1", "0", "1"]);
+            assert_eq!(reduction.lines[0].terms[2].product.to_i64(), Some(3));
+        }
+        o => panic!("{o:?}"),
+    }
+    assert!(app.dirty());
+}
+
+#[test]
+fn undo_and_redo_walk_the_edits() {
+    let (mut app, _) = puzzle("undo");
+    keys(&mut app, &[Key::ch('l'), Key::ch('l'), Key::ch(' ')]);
+    assert_eq!(gamma(&app).as_deref(), Some("A1 + E"));
+    app.handle_key(Key::ch('u'));
+    assert_eq!(gamma(&app), None);
+    assert!(!app.dirty());
+    app.handle_key(Key::ctrl('r'));
+    assert_eq!(gamma(&app).as_deref(), Some("A1 + E"));
+}
+
+#[test]
+fn the_identity_column_cannot_be_unticked() {
+    let (mut app, _) = puzzle("identity");
+    app.apply(Action::Toggle);
+    assert!(!app.dirty());
+    assert!(app
+        .status
+        .as_ref()
+        .unwrap()
+        .text
+        .contains("E leaves every member in place"));
+}
+
+#[test]
+fn saving_writes_the_edit_and_reloading_finds_it() {
+    let (mut app, p) = puzzle("save");
+    keys(
+        &mut app,
+        &[Key::ch('l'), Key::ch('l'), Key::ch(' '), Key::ch('s')],
+    );
+    assert!(!app.dirty());
+    let again = session::load_file(&p).unwrap();
+    assert_eq!(again.sets[0].members[0].unmoved_by, vec!["E", "3sv"]);
+    assert_eq!(again, app.session);
+}
+
+#[test]
+fn quitting_with_unsaved_edits_asks_first() {
+    let (mut app, p) = puzzle("quit");
+    app.handle_key(Key::ch('q'));
+    assert!(app.quit, "nothing to lose: quits at once");
+    let (mut app, _) = puzzle("quit2");
+    keys(
+        &mut app,
+        &[Key::ch('l'), Key::ch('l'), Key::ch(' '), Key::ch('q')],
+    );
+    assert!(!app.quit);
+    assert_eq!(app.mode, Mode::Ask(Question::Quit));
+    app.handle_key(Key::plain(Code::Esc));
+    assert!(!app.quit);
+    app.handle_key(Key::ch('q'));
+    app.handle_key(Key::ch('d'));
+    assert!(app.quit);
+    // the file on disk was not touched
+    let s = session::load_file(&p).unwrap();
+    assert_eq!(s.sets[0].members[0].unmoved_by, vec!["E"]);
+}
+
+#[test]
+fn unsaved_edits_of_an_earlier_run_are_offered_back() {
+    let (app, p) = puzzle("recover");
+    let mut edited = app.session.clone();
+    edited.sets[0].members[0].unmoved_by.push("3sv".into());
+    Recovery::for_session(Some(&p)).write(&edited).unwrap();
+    let mut again = App::new(
+        session::load_file(&p).unwrap(),
+        Some(p.clone()),
+        false,
+        false,
+    );
+    assert!(matches!(again.mode, Mode::Ask(Question::Recover(_))));
+    again.handle_key(Key::ch('r'));
+    again.finish_analysis();
+    assert_eq!(gamma(&again).as_deref(), Some("A1 + E"));
+    assert!(again.dirty(), "restored edits still need saving");
+}
+
+#[test]
+fn adding_a_member_through_the_name_field() {
+    let (mut app, _) = puzzle("add");
+    app.handle_key(Key::ch('a'));
+    assert!(matches!(&app.mode, Mode::Field(f) if f.text == "r4"));
+    app.handle_key(Key::plain(Code::Enter));
+    let (_, s) = app.current_set().unwrap();
+    assert_eq!(s.members.len(), 4);
+    assert_eq!(s.unmoved[0], 4);
+    assert_eq!(app.members_ui.row, 3);
+}
+
+#[test]
+fn finding_and_choosing_a_group_keeps_only_ticks_it_has() {
+    let (mut app, _) = puzzle("group");
+    keys(&mut app, &[Key::ch('l'), Key::ch('l'), Key::ch(' ')]);
+    app.handle_key(Key::ch('/'));
+    assert_eq!(app.panel, Panel::Group);
+    keys(&mut app, &[Key::ch('c'), Key::ch('3'), Key::ch('h')]);
+    assert_eq!(app.group_matches()[0].name, "C3h");
+    app.handle_key(Key::plain(Code::Enter));
+    assert_eq!(app.session.group.as_deref(), Some("C3h"));
+    // 3sv is not a class of C3h: the tick went, E stayed
+    assert_eq!(app.session.sets[0].members[0].unmoved_by, vec!["E"]);
+    app.handle_key(Key::ch('u'));
+    assert_eq!(app.session.group.as_deref(), Some("C3v"));
+    assert_eq!(app.session.sets[0].members[0].unmoved_by, vec!["E", "3sv"]);
+}
+
+#[test]
+fn search_matches_order_and_family_too() {
+    let (mut app, _) = puzzle("search");
+    app.load_catalogue();
+    app.apply(Action::Search);
+    for c in "48".chars() {
+        app.handle_key(Key::ch(c));
+    }
+    assert_eq!(app.group_matches()[0].name, "Oh");
+    app.apply(Action::Search);
+    for c in "cubic".chars() {
+        app.handle_key(Key::ch(c));
+    }
+    let names: Vec<&str> = app
+        .group_matches()
+        .iter()
+        .map(|e| e.name.as_str())
+        .collect();
+    assert_eq!(&names[..5], &["T", "Td", "Th", "O", "Oh"]);
+}
+
+#[test]
+fn a_click_on_a_cell_ticks_it_and_a_click_on_a_tab_opens_it() {
+    let (mut app, _) = puzzle("click");
+    app.screen = (80, 24);
+    // Members panel: body starts at row 2, border, set line, header → first member at y = 5.
+    // Columns: name 9 wide + border 1; E (4 wide), 2C3 (4 wide), 3sv at x = 1 + 9 + 4 + 4.
+    app.apply(Action::Click {
+        x: 1 + 9 + 8 + 2,
+        y: 5,
+    });
+    assert_eq!((app.members_ui.row, app.members_ui.col), (0, 2));
+    assert_eq!(gamma(&app).as_deref(), Some("A1 + E"));
+    app.apply(Action::Click { x: 30, y: 1 });
+    assert_eq!(app.panel, Panel::Representation);
+}
+
+#[test]
+fn every_binding_is_in_the_help_and_keys_are_not_bound_twice_in_one_panel() {
+    let th_help = keymap::help(false);
+    let all: Vec<&str> = th_help
+        .iter()
+        .flat_map(|(_, v)| v.iter().map(|(_, d)| *d))
+        .collect();
+    for b in keymap::BINDINGS {
+        assert!(all.contains(&b.help), "{} missing from help", b.help);
+    }
+    for p in Panel::ALL {
+        let mut seen = std::collections::HashSet::new();
+        for b in keymap::BINDINGS.iter().filter(|b| match b.scope {
+            keymap::Scope::Everywhere => true,
+            keymap::Scope::In(q) => q == p,
+        }) {
+            for k in b.keys {
+                if !seen.insert(*k) {
+                    // a panel binding may shadow a general one, but only that way round
+                    assert_eq!(
+                        keymap::lookup(*k, p),
+                        Some(
+                            keymap::BINDINGS
+                                .iter()
+                                .find(|x| x.keys.contains(k) && x.scope == keymap::Scope::In(p))
+                                .unwrap()
+                                .action
+                        ),
+                        "{k:?} in {p:?}"
+                    );
+                }
+            }
+        }
+    }
+}
