@@ -16,8 +16,8 @@ pub mod report;
 #[doc(hidden)]
 pub mod robustness;
 pub mod salc;
+pub mod session;
 pub mod spectra;
 pub mod survey;
-pub mod session;
 #[cfg(feature = "tui")]
 pub mod tui;

@@ -125,3 +125,23 @@ fn descent_td_to_c3v() {
     let (code, _, err) = run(&["descend", "Td", "D4h"]);
     assert_eq!(code, 2, "{err}");
 }
+
+#[test]
+fn modes_and_bands_from_a_session() {
+    let dir = env!("CARGO_MANIFEST_DIR");
+    let s = format!("{dir}/sessions/tetrahedral-mx4.toml");
+    // The Cartesian set of a tetrahedral MX4 gives Γvib = A1 + E + 2T2 (Nakamoto, Part A):
+    // IR 2, Raman 4.
+    let v = json(&["modes", &s, "--format", "json"]);
+    assert_eq!(v["point_group"], "Td");
+    assert_eq!(v["n_modes"], 9);
+    assert_eq!(v["ir_bands"], 2);
+    assert_eq!(v["raman_bands"], 4);
+    // The session's own band list is checked without --bands.
+    let (code, out, err) = run(&["bands", &s]);
+    assert_eq!(code, 0, "{err}");
+    assert!(out.contains("could be"), "{out}");
+    let (code, _, err) = run(&["modes", &s, "--set", "nope"]);
+    assert_eq!(code, 2);
+    assert!(err.contains("no member set"), "{err}");
+}

@@ -13,11 +13,18 @@ use clap::Args;
 use std::path::PathBuf;
 use std::sync::Arc;
 
+/// A group, Γ of fundamentals (multiplicities per table row) and observed bands.
+type Fundamentals = (Arc<PointGroup>, Vec<u64>, Vec<spectra::Band>);
+
 /// Where a Γ of fundamentals comes from.
 #[derive(Args, Debug)]
 pub struct GammaSource {
-    /// An XYZ file (Γvib of its survey is used).
+    /// An XYZ file (Γvib of its survey) or a session file (.toml: Γvib of its Cartesian set,
+    /// or of the set named by --set; its observed bands feed `bands`).
     pub input: Option<PathBuf>,
+    /// With a session: the member set whose Γ to use.
+    #[arg(long)]
+    pub set: Option<String>,
     /// Point group, with --gamma, instead of a file.
     #[arg(long, requires = "gamma")]
     pub group: Option<String>,
@@ -35,12 +42,33 @@ fn spectra_err(e: spectra::SpectraError) -> CliError {
 impl GammaSource {
     /// The group and Γ (multiplicities per table row).
     fn resolve(&self) -> Result<(Arc<PointGroup>, Vec<u64>), CliError> {
+        self.resolve_with_bands().map(|(g, m, _)| (g, m))
+    }
+
+    /// Also the observed bands, when the input is a session.
+    fn resolve_with_bands(&self) -> Result<Fundamentals, CliError> {
+        if let Some(path) = &self.input {
+            let ext = path.extension().and_then(|e| e.to_str()).unwrap_or("");
+            if ext.eq_ignore_ascii_case("toml") {
+                if self.group.is_some() {
+                    return Err(CliError::input(
+                        "give either a file or --group with --gamma, not both",
+                    ));
+                }
+                return from_session(path, self.set.as_deref());
+            }
+        }
+        let (g, m) = self.resolve_plain()?;
+        Ok((g, m, Vec::new()))
+    }
+
+    fn resolve_plain(&self) -> Result<(Arc<PointGroup>, Vec<u64>), CliError> {
         match (&self.input, &self.group, &self.gamma) {
             (Some(path), None, None) => {
                 let ext = path.extension().and_then(|e| e.to_str()).unwrap_or("");
                 if !ext.eq_ignore_ascii_case("xyz") {
                     return Err(CliError::input(format!(
-                        "{}: expected an .xyz file (or --group with --gamma)",
+                        "{}: expected an .xyz or session .toml file (or --group with --gamma)",
                         path.display()
                     )));
                 }
@@ -65,6 +93,84 @@ impl GammaSource {
                 .with_hint("give an .xyz file, or --group G --gamma \"A1 + E\"")),
         }
     }
+}
+
+/// Γ of fundamentals and the observed bands of a session.
+fn from_session(path: &std::path::Path, set: Option<&str>) -> Result<Fundamentals, CliError> {
+    use crate::session::{Polarization as SP, Technique as ST};
+    let session = crate::session::load_file(path).map_err(|e| CliError::input(e.to_string()))?;
+    let a = crate::analysis::analyze(&session)
+        .map_err(|e| CliError::input(format!("{}: {e}", path.display())))?;
+    let pick = match set {
+        Some(name) => a.sets.iter().find(|s| s.name == name).ok_or_else(|| {
+            let names: Vec<&str> = a.sets.iter().map(|s| s.name.as_str()).collect();
+            CliError::input(format!(
+                "{}: no member set '{name}' ({})",
+                path.display(),
+                names.join(", ")
+            ))
+        })?,
+        None => a
+            .sets
+            .iter()
+            .find(|s| matches!(s.vibrations, Some(Ok(_))))
+            .or_else(|| a.sets.iter().find(|s| s.multiplicities().is_some()))
+            .ok_or_else(|| {
+                CliError::input(format!(
+                    "{}: no member set reduces to a representation",
+                    path.display()
+                ))
+            })?,
+    };
+    let rows = match &pick.vibrations {
+        Some(Ok(v)) => v.vibrations.clone(),
+        Some(Err(e)) => {
+            return Err(CliError::input(format!(
+                "{}: set '{}': {e}",
+                path.display(),
+                pick.name
+            )))
+        }
+        None => pick
+            .multiplicities()
+            .ok_or_else(|| {
+                CliError::input(format!(
+                    "{}: set '{}' is not a representation",
+                    path.display(),
+                    pick.name
+                ))
+            })?
+            .to_vec(),
+    };
+    let bands = session
+        .bands
+        .iter()
+        .map(|b| spectra::Band {
+            position_cm: b.position,
+            technique: match b.technique {
+                ST::Ir => spectra::Technique::Ir,
+                ST::Raman => spectra::Technique::Raman,
+            },
+            intensity: if b.intensity.trim().is_empty() {
+                None
+            } else {
+                Some(match b.intensity.trim().parse::<f64>() {
+                    Ok(v) => spectra::Intensity::Value(v),
+                    Err(_) => spectra::Intensity::Word(b.intensity.clone()),
+                })
+            },
+            polarization: b.polarization.map(|p| match p {
+                SP::Polarized => spectra::Polarization::P,
+                SP::Depolarized => spectra::Polarization::Dp,
+            }),
+            note: if b.note.is_empty() {
+                None
+            } else {
+                Some(b.note.clone())
+            },
+        })
+        .collect();
+    Ok((a.group.clone(), rows, bands))
 }
 
 fn print_json<T: serde::Serialize>(v: &T) {
@@ -164,8 +270,9 @@ pub struct BandsArgs {
     #[command(flatten)]
     pub source: GammaSource,
     /// Observed bands: position, technique (IR/Raman), intensity per line (comma, tab or spaces).
+    /// Optional with a session file, whose bands are used.
     #[arg(long)]
-    pub bands: PathBuf,
+    pub bands: Option<PathBuf>,
     /// Proposed fundamentals with positions, e.g. "A1 459; T2 776".
     #[arg(long)]
     pub nu: Option<String>,
@@ -184,8 +291,15 @@ pub struct BandsArgs {
 }
 
 pub fn bands(a: &BandsArgs, ascii: bool) -> CliResult {
-    let (g, rows) = a.source.resolve()?;
-    let observed = spectra::load_bands(&a.bands).map_err(|e| CliError::input(e.to_string()))?;
+    let (g, rows, session_bands) = a.source.resolve_with_bands()?;
+    let observed = match &a.bands {
+        Some(p) => spectra::load_bands(p).map_err(|e| CliError::input(e.to_string()))?,
+        None if !session_bands.is_empty() => session_bands,
+        None => {
+            return Err(CliError::input("no observed bands")
+                .with_hint("give --bands FILE, or a session file with [[band]] entries"))
+        }
+    };
     let f = match (&a.nu, &a.fundamentals) {
         (None, None) => Vec::new(),
         _ => fundamentals(&g, &rows, &a.nu, &a.fundamentals)?,
