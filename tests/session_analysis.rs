@@ -155,3 +155,89 @@ fn a_c60_sized_cartesian_set_gives_the_known_vibrations() {
     );
     assert_eq!(v.n_modes, 174);
 }
+
+/// An invented tetrahedral MX4 (Sn–Cl 2.30 Å, a realistic length from memory), inline.
+fn mx4_with_geometry(group: &str) -> Session {
+    let c = 2.30 / 3f64.sqrt();
+    let mut atoms = vec![session::Atom {
+        element: "Sn".into(),
+        xyz: [0.0, 0.0, 0.0],
+    }];
+    for s in [
+        [1.0, 1.0, 1.0],
+        [1.0, -1.0, -1.0],
+        [-1.0, 1.0, -1.0],
+        [-1.0, -1.0, 1.0],
+    ] {
+        atoms.push(session::Atom {
+            element: "Cl".into(),
+            xyz: [c * s[0], c * s[1], c * s[2]],
+        });
+    }
+    Session {
+        group: Some(group.into()),
+        geometry: Some(session::Geometry {
+            source: session::GeometrySource::Atoms(atoms),
+            tolerance: 0.01,
+        }),
+        ..Session::default()
+    }
+}
+
+#[test]
+fn an_inline_tetrahedral_geometry_is_surveyed_to_td() {
+    // Source: Nakamoto, Infrared and Raman Spectra of Inorganic and Coordination Compounds,
+    // Part A (tetrahedral XY4): Γvib = A1 + E + 2T2. Geometry invented, from memory.
+    let a = analysis::analyze(&mx4_with_geometry("Td")).unwrap();
+    let ga = a.geometry.as_ref().expect("geometry analysed");
+    let sv = ga.survey.as_ref().expect("survey");
+    assert_eq!(sv.group.name(), "Td");
+    assert_eq!(
+        format_sum(&sv.group, &sv.vibrations.vibrations, false),
+        "A1 + E + 2T2"
+    );
+    assert_eq!(sv.bonds.len(), 4);
+    assert!(a.notes.is_empty(), "{:?}", a.notes);
+    // Stretch SALCs: A1 + T2 (Cotton, 3rd ed., §10.3; from memory), one bond set of four.
+    let salcs = ga.salcs.as_ref().expect("full depth computes SALCs");
+    let sets = salcs.as_ref().as_ref().expect("SALCs");
+    assert_eq!(sets.len(), 1);
+    let set = sets[0].result.as_ref().expect("SALC set");
+    assert_eq!(set.salcs.len(), 4);
+    let mut labels: Vec<&str> = set.salcs.iter().map(|s| s.label.as_str()).collect();
+    labels.dedup();
+    assert_eq!(labels, ["A1", "T2"]);
+}
+
+#[test]
+fn a_chosen_group_that_differs_from_the_geometry_is_said_plainly() {
+    let a = analysis::analyze(&mx4_with_geometry("C3v")).unwrap();
+    assert_eq!(a.group.name(), "C3v", "the user's group is kept");
+    assert_eq!(a.notes.len(), 1);
+    assert!(
+        a.notes[0].contains("Td") && a.notes[0].contains("C3v"),
+        "{}",
+        a.notes[0]
+    );
+}
+
+#[test]
+fn bad_geometry_becomes_a_located_message() {
+    let mut s = mx4_with_geometry("Td");
+    if let Some(session::Geometry {
+        source: session::GeometrySource::Atoms(atoms),
+        ..
+    }) = &mut s.geometry
+    {
+        atoms[2].element = "Qq".into();
+    }
+    let a = analysis::analyze(&s).unwrap();
+    let e = a.geometry.unwrap().survey.unwrap_err();
+    assert!(e.contains("atom 3") && e.contains("Qq"), "{e}");
+    let mut s = mx4_with_geometry("Td");
+    s.geometry.as_mut().unwrap().source =
+        session::GeometrySource::File("/nonexistent/dir/none.xyz".into());
+    let a = analysis::analyze(&s).unwrap();
+    let e = a.geometry.unwrap().survey.unwrap_err();
+    assert!(e.contains("none.xyz"), "{e}");
+}

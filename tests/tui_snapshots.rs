@@ -92,3 +92,55 @@ fn the_help_overlay_and_the_quit_question() {
     a.mode = Mode::Ask(Question::Quit);
     insta::assert_snapshot!("quit_question_80x24", screen(&mut a, 80, 24));
 }
+
+/// An invented tetrahedral MX4 with inline atoms (Sn–Cl 2.30 Å, from memory).
+fn mx4_app(ascii: bool) -> App {
+    let c = 2.30 / 3f64.sqrt();
+    let mut atoms = vec![session::Atom {
+        element: "Sn".into(),
+        xyz: [0.0, 0.0, 0.0],
+    }];
+    for s in [
+        [1.0, 1.0, 1.0],
+        [1.0, -1.0, -1.0],
+        [-1.0, 1.0, -1.0],
+        [-1.0, -1.0, 1.0],
+    ] {
+        atoms.push(session::Atom {
+            element: "Cl".into(),
+            xyz: [c * s[0], c * s[1], c * s[2]],
+        });
+    }
+    let s = session::Session {
+        title: "Invented MX4 with a geometry".into(),
+        group: Some("Td".into()),
+        geometry: Some(session::Geometry {
+            source: session::GeometrySource::Atoms(atoms),
+            tolerance: 0.01,
+        }),
+        ..session::Session::default()
+    };
+    let mut a = App::new(s, None, ascii, false);
+    a.finish_analysis();
+    a
+}
+
+#[test]
+fn a_session_with_a_geometry_shows_the_survey_and_the_salcs() {
+    for ascii in [false, true] {
+        let mut a = mx4_app(ascii);
+        for p in [Panel::Molecule, Panel::Combinations] {
+            a.apply(Action::GoPanel(p));
+            let name = format!(
+                "geometry_{}_80x24_{}",
+                slug(p),
+                if ascii { "ascii" } else { "unicode" }
+            );
+            let s = screen(&mut a, 80, 24);
+            if ascii {
+                assert!(s.is_ascii(), "{name} has non-ASCII text:\n{s}");
+            }
+            insta::assert_snapshot!(name, s);
+        }
+    }
+}

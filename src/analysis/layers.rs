@@ -20,16 +20,8 @@ pub struct Layers {
 impl Layers {
     pub fn of_this_build() -> Self {
         Layers {
-            geometry: LayerStatus::Missing(
-                "the geometry layer (XYZ files, point-group detection with near misses, \
-                 symmetrizing) is in this build but not yet wired into sessions: use \
-                 `salcdesk detect FILE.xyz` and `salcdesk analyze FILE.xyz` meanwhile",
-            ),
-            salc: LayerStatus::Missing(
-                "the SALC layer is in this build but not yet wired into sessions, whose members \
-                 carry ticks rather than positions: use `salcdesk salc` on an XYZ file or a \
-                 group with sites meanwhile",
-            ),
+            geometry: LayerStatus::Present,
+            salc: LayerStatus::Present,
             spectra: LayerStatus::Present,
         }
     }

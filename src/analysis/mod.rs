@@ -10,16 +10,19 @@
 mod cache;
 mod catalogue;
 mod classes;
+mod geometry;
 mod layers;
 mod set;
 
 pub use catalogue::{catalogue, fit, GroupEntry};
 pub use classes::{class_label, resolve_class};
+pub use geometry::{BondSalcs, GeometryAnalysis};
 pub use layers::{LayerStatus, Layers};
 pub use set::{Outcome, SetAnalysis};
 
 use crate::group::{self, PointGroup};
 use crate::session::Session;
+use std::path::Path;
 use std::sync::Arc;
 
 /// Why a session could not be analysed at all.
@@ -40,6 +43,10 @@ pub struct Analysis {
     /// Which later layers exist in this build.
     pub layers: Layers,
     pub depth: Depth,
+    /// The geometry layer, when the session has a `[geometry]`.
+    pub geometry: Option<GeometryAnalysis>,
+    /// Remarks on the session as a whole (e.g. the chosen group differs from the geometry's).
+    pub notes: Vec<String>,
 }
 
 impl Analysis {
@@ -71,8 +78,14 @@ pub fn analyze(session: &Session) -> Result<Analysis, Error> {
 }
 
 /// Analyse a session to the given depth (the terminal workspace shows a quick analysis at
-/// once and the full one when it is ready).
+/// once and the full one when it is ready). A relative XYZ path is read from the current
+/// directory; [`analyze_in`] names the session file's directory instead.
 pub fn analyze_to(session: &Session, depth: Depth) -> Result<Analysis, Error> {
+    analyze_in(session, depth, None)
+}
+
+/// Analyse a session to the given depth, reading a relative XYZ path from `base`.
+pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Result<Analysis, Error> {
     let name = session.group.as_deref().ok_or(Error::NoGroup)?;
     let g = group::load(name).map_err(|e| Error::Group(e.to_string()))?;
     let sets = session
@@ -80,10 +93,31 @@ pub fn analyze_to(session: &Session, depth: Depth) -> Result<Analysis, Error> {
         .iter()
         .map(|s| set::analyze_set(&g, s, depth))
         .collect();
+    let geometry = geometry::analyze_geometry(session, base, depth == Depth::Full);
+    let mut notes = Vec::new();
+    if let Some(ga) = &geometry {
+        match &ga.survey {
+            Ok(sv) if sv.group.name() != g.name() => notes.push(format!(
+                "the geometry has {} symmetry (largest deviation {:.3} Å at tolerance {} Å) \
+                 but this session's group is {}: the ticks and reductions use {}, as chosen; \
+                 pick {} in the Point group panel to follow the geometry",
+                sv.group.name(),
+                sv.detection.max_deviation,
+                ga.tolerance,
+                g.name(),
+                g.name(),
+                sv.group.name()
+            )),
+            Ok(_) => {}
+            Err(e) => notes.push(format!("the geometry could not be used: {e}")),
+        }
+    }
     Ok(Analysis {
         group: g,
         sets,
         layers: Layers::of_this_build(),
         depth,
+        geometry,
+        notes,
     })
 }

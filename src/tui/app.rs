@@ -154,6 +154,14 @@ impl App {
         app
     }
 
+    /// The directory relative XYZ paths of the session are read from.
+    pub fn base_dir(&self) -> Option<PathBuf> {
+        self.path
+            .as_ref()
+            .and_then(|p| p.parent())
+            .map(|d| d.to_path_buf())
+    }
+
     /// Whether there are edits not yet saved.
     pub fn dirty(&self) -> bool {
         self.session != self.saved
@@ -177,7 +185,9 @@ impl App {
 
     /// Analyse at once, to the quick depth (fast enough for every keystroke).
     pub fn quick_analysis(&mut self) {
-        self.analysis = analysis::analyze_to(&self.session, Depth::Quick).map(Arc::new);
+        self.analysis =
+            analysis::analyze_in(&self.session, Depth::Quick, self.base_dir().as_deref())
+                .map(Arc::new);
         self.analysis_gen = self.gen;
         self.clamp_cursors();
     }
@@ -193,7 +203,7 @@ impl App {
 
     /// Compute the full analysis here and now (tests; the terminal uses the worker).
     pub fn finish_analysis(&mut self) {
-        let r = analysis::analyze(&self.session);
+        let r = analysis::analyze_in(&self.session, Depth::Full, self.base_dir().as_deref());
         self.accept_analysis(self.gen, r);
     }
 
@@ -873,7 +883,7 @@ impl App {
             "txt" => Format::Text,
             _ => Format::Markdown,
         };
-        let r = analysis::analyze(&self.session);
+        let r = analysis::analyze_in(&self.session, Depth::Full, self.base_dir().as_deref());
         let text = session_report::render(&self.session, &r, fmt, self.ascii);
         match session::write_atomic(p, &text) {
             Ok(()) => self.status(format!("report written to {}", p.display())),

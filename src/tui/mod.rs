@@ -127,7 +127,7 @@ fn event_loop(
         }
         if app.gen != requested {
             requested = app.gen;
-            worker.request(app.gen, app.session.clone());
+            worker.request(app.gen, app.session.clone(), app.base_dir());
         }
         if rescue_gen != app.gen {
             rescue_gen = app.gen;

@@ -4,8 +4,12 @@
 
 use crate::analysis::{self, Analysis, Depth, Error};
 use crate::session::Session;
+use std::path::PathBuf;
 use std::sync::mpsc::{channel, Receiver, Sender};
 use std::thread;
+
+/// (generation, session, directory of the session file).
+type Job = (u64, Session, Option<PathBuf>);
 
 /// A finished analysis for the session of generation `gen`.
 pub struct Done {
@@ -15,20 +19,20 @@ pub struct Done {
 
 /// Handle on the background analyser.
 pub struct Worker {
-    tx: Sender<(u64, Session)>,
+    tx: Sender<Job>,
     rx: Receiver<Done>,
 }
 
 impl Worker {
     pub fn start() -> Self {
-        let (tx, req) = channel::<(u64, Session)>();
+        let (tx, req) = channel::<Job>();
         let (done, rx) = channel::<Done>();
         thread::spawn(move || {
             while let Ok(mut job) = req.recv() {
                 while let Ok(newer) = req.try_recv() {
                     job = newer;
                 }
-                let result = analysis::analyze_to(&job.1, Depth::Full);
+                let result = analysis::analyze_in(&job.1, Depth::Full, job.2.as_deref());
                 if done.send(Done { gen: job.0, result }).is_err() {
                     break;
                 }
@@ -36,8 +40,8 @@ impl Worker {
         });
         Worker { tx, rx }
     }
-    pub fn request(&self, gen: u64, session: Session) {
-        let _ = self.tx.send((gen, session));
+    pub fn request(&self, gen: u64, session: Session, base: Option<PathBuf>) {
+        let _ = self.tx.send((gen, session, base));
     }
     pub fn poll(&self) -> Option<Done> {
         let mut last = None;

@@ -1,11 +1,12 @@
-//! Combinations: symmetry-adapted linear combinations of each member set. The SALC layer is
-//! not in this build yet, so the panel says so and shows what exists: for each set, how many
-//! combinations of each symmetry the reduction promises.
+//! Combinations: symmetry-adapted linear combinations. With a geometry, the exact normalized
+//! stretch SALCs of each of its bond sets (computed by the full analysis, cached by geometry);
+//! without one, how many combinations of each symmetry each set's reduction promises.
 
 use super::super::app::App;
 use super::super::theme::Theme;
 use super::{block, missing_layer, styled};
-use crate::analysis::LayerStatus;
+use crate::analysis::{GeometryAnalysis, LayerStatus};
+use crate::exact::Notation;
 use ratatui::layout::Rect;
 use ratatui::text::Line;
 use ratatui::widgets::Paragraph;
@@ -72,7 +73,10 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
                     th,
                 ));
             }
-            lines.extend(promised(app, th));
+            match &a.geometry {
+                Some(ga) => lines.extend(geometry_salcs(ga, th, inner.width as usize)),
+                None => lines.extend(promised(app, th)),
+            }
         }
         Err(e) => lines.push(styled(&e.to_string(), th.warn(), th)),
     }
@@ -81,4 +85,85 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         Paragraph::new(lines).scroll((app.scroll.min(max), 0)),
         inner,
     );
+}
+
+/// Exact normalized stretch SALCs per bond set of the geometry, grouped by irrep.
+fn geometry_salcs(ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Line<'static>> {
+    let mut out = Vec::new();
+    let wrapped = |out: &mut Vec<Line<'static>>, s: &str, style| {
+        for l in super::super::text::wrap(s, width) {
+            out.push(styled(&l, style, th));
+        }
+    };
+    if let Err(e) = &ga.survey {
+        wrapped(&mut out, e, th.warn());
+        return out;
+    }
+    let Some(res) = &ga.salcs else {
+        out.push(styled(
+            "Working out the stretch SALCs of the geometry…",
+            th.dim(),
+            th,
+        ));
+        return out;
+    };
+    let sets = match &**res {
+        Ok(s) => s,
+        Err(e) => {
+            wrapped(&mut out, &format!("No SALCs: {e}"), th.warn());
+            return out;
+        }
+    };
+    if sets.is_empty() {
+        out.push(styled(
+            "The geometry has no bonds: no stretch SALCs.",
+            th.dim(),
+            th,
+        ));
+        return out;
+    }
+    let nt = if th.ascii {
+        Notation::Ascii
+    } else {
+        Notation::Unicode
+    };
+    out.push(styled(
+        &format!(
+            "Stretch SALCs of the geometry's bonds (group {})",
+            ga.survey
+                .as_ref()
+                .map(|s| s.working.name().to_string())
+                .unwrap_or_default()
+        ),
+        th.heading(),
+        th,
+    ));
+    for bs in sets {
+        out.push(Line::raw(""));
+        match &bs.result {
+            Err(e) => wrapped(&mut out, &format!("{}: {e}", bs.name), th.warn()),
+            Ok(set) => {
+                out.push(styled(
+                    &format!("{} ({} members)", bs.name, set.members.len()),
+                    th.heading(),
+                    th,
+                ));
+                let mut last = usize::MAX;
+                for sc in &set.salcs {
+                    if sc.irrep != last {
+                        last = sc.irrep;
+                        let label = if th.ascii {
+                            sc.label.clone()
+                        } else {
+                            crate::group::display_label(&sc.label)
+                        };
+                        out.push(styled(&format!(" {label}"), th.result(), th));
+                    }
+                    let text = crate::salc::salc_text(sc, &set.members, nt);
+                    wrapped(&mut out, &format!("   {text}"), Default::default());
+                }
+            }
+        }
+    }
+    out
 }

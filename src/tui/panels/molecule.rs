@@ -1,12 +1,12 @@
-//! Molecule: atoms, bonds, the detected group and its near misses, and the site builder. The
-//! geometry layer is not in this build yet, so the panel says so and shows what the session
-//! holds: the atoms (or the XYZ file named) and the tolerance.
+//! Molecule: the atoms of the session's geometry, and what the survey of them found: the
+//! detected group and its near misses, bonds, bond sets with Γ, Γ3N and Γvib, redundancies.
 
 use super::super::app::App;
-use super::super::text::pad;
+use super::super::text::{pad, wrap};
 use super::super::theme::Theme;
-use super::{block, missing_layer, styled};
-use crate::analysis::LayerStatus;
+use super::{block, fold, missing_layer, styled};
+use crate::analysis::{GeometryAnalysis, LayerStatus};
+use crate::rep::format_sum;
 use crate::session::GeometrySource;
 use ratatui::layout::Rect;
 use ratatui::text::Line;
@@ -67,6 +67,18 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
             }
         }
     }
+    if let Ok(a) = &app.analysis {
+        if let Some(ga) = &a.geometry {
+            lines.push(Line::raw(""));
+            lines.extend(survey_lines(ga, th, inner.width as usize));
+        }
+        for n in &a.notes {
+            lines.push(Line::raw(""));
+            for l in wrap(&format!("Note: {n}."), inner.width as usize) {
+                lines.push(styled(&l, th.warn(), th));
+            }
+        }
+    }
     if let Some(g) = &app.session.group {
         lines.push(Line::raw(""));
         lines.push(styled(&format!("Group chosen by hand: {g}"), th.dim(), th));
@@ -76,4 +88,117 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         Paragraph::new(lines).scroll((app.scroll.min(max), 0)),
         inner,
     );
+}
+
+/// What the survey of the geometry found (or why there is none).
+fn survey_lines(ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Line<'static>> {
+    let mut out = Vec::new();
+    let sv = match &ga.survey {
+        Ok(s) => s,
+        Err(e) => {
+            for l in wrap(e, width) {
+                out.push(styled(&l, th.warn(), th));
+            }
+            return out;
+        }
+    };
+    let g = &sv.group;
+    let sum = |m: &[u64]| fold(&format_sum(g, m, !th.ascii), th);
+    let gname = if th.ascii {
+        g.table.name.clone()
+    } else {
+        g.table.symbol.clone()
+    };
+    out.push(styled(
+        &format!(
+            "Detected group {gname}: largest deviation {:.4} Å at tolerance {} Å",
+            sv.detection.max_deviation, ga.tolerance
+        ),
+        th.heading(),
+        th,
+    ));
+    if !sv.near_misses.is_empty() {
+        let nm: Vec<String> = sv
+            .near_misses
+            .iter()
+            .map(|n| {
+                format!(
+                    "{} at {} Å (dev {:.3})",
+                    n.group, n.tolerance, n.max_deviation
+                )
+            })
+            .collect();
+        for l in wrap(&format!("Near misses: {}", nm.join("; ")), width) {
+            out.push(styled(&l, th.dim(), th));
+        }
+    }
+    let atoms = &sv.oriented.molecule.atoms;
+    let label = |i: usize| format!("{}{}", atoms[i].symbol(), i + 1);
+    let bonds: Vec<String> = sv
+        .bonds
+        .iter()
+        .map(|&(a, b)| {
+            let d = (atoms[a].position - atoms[b].position).norm();
+            format!("{}-{} {:.3} Å", label(a), label(b), d)
+        })
+        .collect();
+    out.push(styled(
+        &format!("Bonds ({})", bonds.len()),
+        th.heading(),
+        th,
+    ));
+    for l in wrap(&bonds.join(", "), width) {
+        out.push(styled(&l, Default::default(), th));
+    }
+    out.push(styled(
+        &format!("Γ3N = {}", sum(&sv.vibrations.gamma_3n)),
+        Default::default(),
+        th,
+    ));
+    out.push(styled(
+        &format!(
+            "Γvib = {}  ({} modes)",
+            sum(&sv.vibrations.vibrations),
+            sv.vibrations.n_modes
+        ),
+        th.heading(),
+        th,
+    ));
+    for bs in &sv.bond_sets {
+        out.push(styled(
+            &format!(
+                "Bond set {} ({} bonds): Γ = {}",
+                bs.set.label,
+                bs.set.bonds.len(),
+                sum(&bs.gamma)
+            ),
+            Default::default(),
+            th,
+        ));
+    }
+    for s in &sv.angle_sets {
+        out.push(styled(
+            &format!(
+                "Angle set {} ({} angles): Γ = {}",
+                s.set.label,
+                s.set.angles.len(),
+                sum(&s.gamma)
+            ),
+            Default::default(),
+            th,
+        ));
+    }
+    if sv.redundant.iter().any(|n| *n > 0) {
+        out.push(styled(
+            &format!("Redundant internal combinations: {}", sum(&sv.redundant)),
+            th.dim(),
+            th,
+        ));
+    }
+    for n in &sv.notes {
+        for l in wrap(n, width) {
+            out.push(styled(&l, th.dim(), th));
+        }
+    }
+    out
 }
