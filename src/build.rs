@@ -3,6 +3,7 @@ use std::{env, fs, path::Path};
 
 fn main() {
     let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("tables");
+    // (this file lives in src/ so the top level holds only what the project layout names)
     println!("cargo:rerun-if-changed={}", dir.display());
     let mut entries: Vec<String> = Vec::new();
     if let Ok(rd) = fs::read_dir(&dir) {
