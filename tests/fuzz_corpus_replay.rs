@@ -28,3 +28,23 @@ fn exact_number_corpus() {
 fn table_file_corpus() {
     replay("table_file", salcdesk::robustness::table_file);
 }
+
+#[test]
+fn xyz_file_corpus() {
+    replay("xyz_file", salcdesk::robustness::xyz_file);
+}
+
+#[test]
+fn session_file_corpus() {
+    replay("session_file", salcdesk::robustness::session_file);
+}
+
+#[test]
+fn band_list_corpus() {
+    replay("band_list", salcdesk::robustness::band_list);
+}
+
+#[test]
+fn small_geometry_corpus() {
+    replay("small_geometry", salcdesk::robustness::small_geometry);
+}
