@@ -176,10 +176,9 @@ fn mx4_with_geometry(group: &str) -> Session {
     }
     Session {
         group: Some(group.into()),
-        geometry: Some(session::Geometry {
-            source: session::GeometrySource::Atoms(atoms),
-            tolerance: 0.01,
-        }),
+        geometry: Some(session::Geometry::new(session::GeometrySource::Atoms(
+            atoms,
+        ))),
         ..Session::default()
     }
 }

@@ -114,10 +114,9 @@ fn mx4_app(ascii: bool) -> App {
     let s = session::Session {
         title: "Invented MX4 with a geometry".into(),
         group: Some("Td".into()),
-        geometry: Some(session::Geometry {
-            source: session::GeometrySource::Atoms(atoms),
-            tolerance: 0.01,
-        }),
+        geometry: Some(session::Geometry::new(session::GeometrySource::Atoms(
+            atoms,
+        ))),
         ..session::Session::default()
     };
     let mut a = App::new(s, None, ascii, false);

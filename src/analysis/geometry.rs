@@ -33,7 +33,7 @@ pub struct GeometryAnalysis {
     pub salcs: Option<Arc<Result<Vec<BondSalcs>, String>>>,
 }
 
-/// (source, tolerance bits, file stamp).
+/// (source, tolerance bits, file stamp + bond edits).
 type Key = (String, u64, String);
 
 const LIMIT: usize = 64;
@@ -79,7 +79,8 @@ fn key_of(g: &Geometry, base: Option<&Path>) -> Key {
             (p.display().to_string(), stamp)
         }
     };
-    (src, g.tolerance.to_bits(), stamp)
+    let edits = format!("{stamp} +{:?} -{:?}", g.add_bonds, g.remove_bonds);
+    (src, g.tolerance.to_bits(), edits)
 }
 
 fn molecule(g: &Geometry, base: Option<&Path>) -> Result<Molecule, String> {
@@ -128,13 +129,34 @@ fn run_survey(g: &Geometry, base: Option<&Path>) -> Result<Arc<Survey>, String> 
             g.tolerance
         ));
     }
-    let mol = molecule(g, base)?;
-    let opts = SurveyOptions {
+    let mut mol = molecule(g, base)?;
+    let mut opts = SurveyOptions {
         tolerance: g.tolerance,
         ..SurveyOptions::default()
     };
+    let edits = geom::BondEdits {
+        add: g.add_bonds.clone(),
+        remove: g.remove_bonds.clone(),
+    };
+    if !edits.is_empty() {
+        mol.bonds = with_edits(&mol, &edits, opts.bond_factor)?;
+        opts.perceive_bonds = false;
+    }
     survey::survey(&mol, &opts)
         .map(Arc::new)
+        .map_err(|e| format!("[geometry] {e}"))
+}
+
+/// Perceived bonds with the user's edits applied (located message on a bad atom number).
+fn with_edits(
+    mol: &Molecule,
+    edits: &geom::BondEdits,
+    factor: f64,
+) -> Result<Vec<(usize, usize)>, String> {
+    let perceived =
+        geom::perceive_bonds(mol, factor).map_err(|e| format!("[geometry] bonds: {e}"))?;
+    edits
+        .apply(&perceived, mol.atoms.len())
         .map_err(|e| format!("[geometry] {e}"))
 }
 

@@ -122,6 +122,13 @@ pub struct AnalyzeArgs {
     /// Output format: text, md, json, jsonl (one object per file, in input order).
     #[arg(long, short, default_value = "text", value_parser = parse_batch_format)]
     pub format: BatchFormat,
+    /// Add a bond to the perceived ones: atom numbers from 1 in file order, e.g. 1-5
+    /// (repeatable).
+    #[arg(long = "add-bond", value_name = "I-J", value_parser = geom::parse_bond)]
+    pub add_bond: Vec<[usize; 2]>,
+    /// Remove a perceived bond, e.g. 2-3 (repeatable).
+    #[arg(long = "remove-bond", value_name = "I-J", value_parser = geom::parse_bond)]
+    pub remove_bond: Vec<[usize; 2]>,
 }
 
 fn collect_inputs(inputs: &[PathBuf]) -> Result<Vec<PathBuf>, CliError> {
@@ -174,9 +181,21 @@ fn analyze_one(
     opts: &XyzOptions,
     ascii: bool,
 ) -> Result<(String, serde_json::Value), String> {
-    let mol = read_molecule(path, opts)?;
-    let s = survey(&mol, &a.geometry.survey_options())
-        .map_err(|e| format!("{}: {e}", path.display()))?;
+    let mut mol = read_molecule(path, opts)?;
+    let mut sopts = a.geometry.survey_options();
+    let edits = geom::BondEdits {
+        add: a.add_bond.clone(),
+        remove: a.remove_bond.clone(),
+    };
+    if !edits.is_empty() {
+        let perceived = geom::perceive_bonds(&mol, sopts.bond_factor)
+            .map_err(|e| format!("{}: {e}", path.display()))?;
+        mol.bonds = edits
+            .apply(&perceived, mol.atoms.len())
+            .map_err(|e| format!("{}: {e}", path.display()))?;
+        sopts.perceive_bonds = false;
+    }
+    let s = survey(&mol, &sopts).map_err(|e| format!("{}: {e}", path.display()))?;
     let name = path.display().to_string();
     let json = report::survey::to_json(&name, &mol, &s);
     let text = match a.format {

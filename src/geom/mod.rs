@@ -18,7 +18,7 @@ pub mod sites;
 pub mod symmetry;
 pub mod xyz;
 
-pub use bonds::{perceive_bonds, DEFAULT_BOND_FACTOR};
+pub use bonds::{parse_bond, perceive_bonds, BondEdits, DEFAULT_BOND_FACTOR};
 pub use elements::{atomic_number, covalent_radius, mass, symbol};
 pub use error::GeomError;
 pub use molecule::{Atom, Molecule};

@@ -46,6 +46,10 @@ struct RawGeometry {
     file: Option<String>,
     #[serde(default)]
     atoms: Option<Vec<RawAtom>>,
+    #[serde(default)]
+    add_bonds: Vec<Spanned<Vec<Spanned<i64>>>>,
+    #[serde(default)]
+    remove_bonds: Vec<Spanned<Vec<Spanned<i64>>>>,
 }
 
 #[derive(Deserialize)]
@@ -286,7 +290,49 @@ fn geometry(g: &Spanned<RawGeometry>, at: &At) -> Result<Geometry, LoadError> {
             GeometrySource::Atoms(out)
         }
     };
-    Ok(Geometry { source, tolerance })
+    let add_bonds = bond_pairs("add_bonds", &raw.add_bonds, at)?;
+    let remove_bonds = bond_pairs("remove_bonds", &raw.remove_bonds, at)?;
+    Ok(Geometry {
+        source,
+        tolerance,
+        add_bonds,
+        remove_bonds,
+    })
+}
+
+/// `[[1, 5], [2, 3]]`: pairs of 1-based atom numbers. Whether the atoms exist is checked by
+/// the analysis, which knows the atoms (they may come from a file).
+fn bond_pairs(
+    key: &str,
+    raw: &[Spanned<Vec<Spanned<i64>>>],
+    at: &At,
+) -> Result<Vec<[usize; 2]>, LoadError> {
+    let mut out = Vec::with_capacity(raw.len());
+    for p in raw {
+        let v = p.get_ref();
+        if v.len() != 2 {
+            return Err(at(
+                p.span().start,
+                format!(
+                    "{key}: each bond is two atom numbers like [1, 5], found {} number(s)",
+                    v.len()
+                ),
+            ));
+        }
+        let mut pair = [0usize; 2];
+        for (k, n) in v.iter().enumerate() {
+            let x = *n.get_ref();
+            if x < 1 {
+                return Err(at(
+                    n.span().start,
+                    format!("{key}: atom numbers count from 1, found {x}"),
+                ));
+            }
+            pair[k] = usize::try_from(x).unwrap_or(usize::MAX);
+        }
+        out.push(pair);
+    }
+    Ok(out)
 }
 
 fn member_set(s: &RawSet, at: &At) -> Result<MemberSet, LoadError> {

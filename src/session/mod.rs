@@ -19,13 +19,15 @@
 //! Free text, kept as written.
 //! """
 //!
-//! [geometry]                      # optional; used once the geometry layer is in the build
+//! [geometry]                      # optional: the molecule itself
 //! tolerance = 0.01                # Å, for symmetry detection
 //! file = "ptcl4.xyz"              # an XYZ file, relative to this session file …
 //! atoms = [                       # … or the atoms inline (one of the two)
 //!   { element = "Pt", xyz = [0.0, 0.0, 0.0] },
 //!   { element = "Cl", xyz = [2.3, 0.0, 0.0] },
 //! ]
+//! add_bonds = [[1, 5]]           # optional: bonds added to the perceived ones and perceived
+//! remove_bonds = [[2, 3]]         # bonds taken away (atom numbers from 1, in atom order)
 //!
 //! [[set]]                         # one block per member set (a basis of your choosing)
 //! name = "Pt–Cl stretches"

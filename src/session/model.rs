@@ -23,6 +23,22 @@ pub struct Geometry {
     pub source: GeometrySource,
     /// Å.
     pub tolerance: f64,
+    /// Bonds the user added to the perceived ones (1-based atom numbers, as written).
+    pub add_bonds: Vec<[usize; 2]>,
+    /// Perceived bonds the user removed (1-based atom numbers, as written).
+    pub remove_bonds: Vec<[usize; 2]>,
+}
+
+impl Geometry {
+    /// A geometry with the default tolerance and no bond edits.
+    pub fn new(source: GeometrySource) -> Self {
+        Geometry {
+            source,
+            tolerance: 0.01,
+            add_bonds: Vec::new(),
+            remove_bonds: Vec::new(),
+        }
+    }
 }
 
 /// Inline atoms or an XYZ file (path as written, relative to the session file).

@@ -72,6 +72,18 @@ pub fn to_toml(s: &Session) -> String {
                 o.push_str("]\n");
             }
         }
+        for (key, pairs) in [
+            ("add_bonds", &g.add_bonds),
+            ("remove_bonds", &g.remove_bonds),
+        ] {
+            if !pairs.is_empty() {
+                let list: Vec<String> = pairs
+                    .iter()
+                    .map(|p| format!("[{}, {}]", p[0], p[1]))
+                    .collect();
+                o.push_str(&format!("{key} = [{}]\n", list.join(", ")));
+            }
+        }
     }
     for set in &s.sets {
         o.push_str("\n[[set]]\n");

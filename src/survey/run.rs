@@ -22,6 +22,9 @@ pub struct SurveyOptions {
     pub linear_angle_cutoff: f64,
     /// Perceive bonds and reduce bond and angle sets (off: group, orientation, Γ3N, Γvib only).
     pub internal_coordinates: bool,
+    /// Perceive bonds when the molecule has none (off: the molecule's bond list is taken as
+    /// it is, even empty — the user's edited list).
+    pub perceive_bonds: bool,
 }
 
 /// Above this many bond angles the angle sets are skipped (a note says so): clusters and
@@ -37,6 +40,7 @@ impl Default for SurveyOptions {
             near_misses: true,
             linear_angle_cutoff: 1.0,
             internal_coordinates: true,
+            perceive_bonds: true,
         }
     }
 }
@@ -59,6 +63,61 @@ pub enum SurveyError {
         distance: f64,
         limit: f64,
     },
+    #[error(
+        "the bond list is not symmetric in {group}: atoms {a}-{b} are bonded but their image \
+         {c}-{d} under {op} is not; add or remove whole sets of equivalent bonds"
+    )]
+    BondsNotSymmetric {
+        group: String,
+        op: String,
+        a: usize,
+        b: usize,
+        c: usize,
+        d: usize,
+    },
+    #[error("bond {a}-{b} names an atom that does not exist ({n} atoms)")]
+    BondOutOfRange { a: usize, b: usize, n: usize },
+}
+
+/// Every operation must map the bond list onto itself; otherwise a bond set is no basis of a
+/// representation (a perceived bond at the edge of the radius criterion, or a user's edit).
+fn check_bonds_symmetric(
+    bonds: &[(usize, usize)],
+    n_atoms: usize,
+    w: &PointGroup,
+    permutations: &[Vec<usize>],
+) -> Result<(), SurveyError> {
+    let set: std::collections::HashSet<(usize, usize)> =
+        bonds.iter().map(|&(a, b)| (a.min(b), a.max(b))).collect();
+    for &(a, b) in bonds {
+        if a >= n_atoms || b >= n_atoms {
+            return Err(SurveyError::BondOutOfRange {
+                a: a + 1,
+                b: b + 1,
+                n: n_atoms,
+            });
+        }
+    }
+    for (k, perm) in permutations.iter().enumerate() {
+        for &(a, b) in bonds {
+            let (c, d) = (perm[a], perm[b]);
+            if !set.contains(&(c.min(d), c.max(d))) {
+                let class = &w.table.classes[w.ops[k].class];
+                return Err(SurveyError::BondsNotSymmetric {
+                    group: w.name().to_string(),
+                    op: class
+                        .ascii
+                        .trim_start_matches(|c: char| c.is_ascii_digit())
+                        .to_string(),
+                    a: a + 1,
+                    b: b + 1,
+                    c: c.min(d) + 1,
+                    d: c.max(d) + 1,
+                });
+            }
+        }
+    }
+    Ok(())
 }
 
 /// Closest distance two atoms of a real molecule may have (shortest bonds are ~0.74 Å).
@@ -231,11 +290,12 @@ pub fn survey(mol: &Molecule, opts: &SurveyOptions) -> Result<Survey, SurveyErro
     let mut notes = detection.notes.clone();
     let bonds = if !opts.internal_coordinates {
         Vec::new()
-    } else if mol.bonds.is_empty() {
+    } else if mol.bonds.is_empty() && opts.perceive_bonds {
         geom::perceive_bonds(&oriented.molecule, opts.bond_factor)?
     } else {
         mol.bonds.clone()
     };
+    check_bonds_symmetric(&bonds, mol.atoms.len(), &w, &permutations)?;
     let symbol = |i: usize| oriented.molecule.atoms[i].symbol().to_string();
     let class_perms: Vec<&Vec<usize>> = class_ops.iter().map(|&k| &permutations[k]).collect();
     let mut bond_out = Vec::new();
