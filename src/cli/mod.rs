@@ -2,6 +2,7 @@
 //!
 //! Exit codes: 0 success, 2 bad input (message on stderr), 1 other failures.
 
+mod build_cmds;
 mod geometry_cmds;
 mod molecule_cmds;
 mod session_cmds;
@@ -83,6 +84,8 @@ pub enum Command {
     Descend(spectra_cmds::DescendArgs),
     /// SALCs of a basis on a molecule (XYZ file) or a what-if molecule (group + --sites).
     Salc(molecule_cmds::SalcArgs),
+    /// Build a what-if molecule from a group's sites; write it as XYZ or as a new session.
+    Build(build_cmds::BuildArgs),
 }
 
 /// Run a parsed command line (everything but the terminal workspace).
@@ -104,6 +107,7 @@ pub fn run(cli: &Cli) -> CliResult {
         Some(Command::Bands(a)) => spectra_cmds::bands(a, ascii),
         Some(Command::Descend(a)) => spectra_cmds::descend(a, ascii),
         Some(Command::Salc(a)) => molecule_cmds::salc(a, ascii),
+        Some(Command::Build(a)) => build_cmds::build(a),
         None => session_cmds::workspace(None, ascii, false),
     }
 }

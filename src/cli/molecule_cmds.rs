@@ -8,7 +8,7 @@
 
 use super::{parse_format, CliError, CliResult};
 use crate::basis::{self, Basis, Placed, Structure};
-use crate::geom::{self, SiteKind, SiteParams, SiteType};
+use crate::geom;
 use crate::group::{self, PointGroup};
 use crate::report::Format;
 use crate::salc::{self, View};
@@ -54,94 +54,22 @@ fn load(name: &str) -> Result<Arc<PointGroup>, CliError> {
     group::load(name).map_err(input)
 }
 
-fn kind_name(k: SiteKind) -> &'static str {
-    match k {
-        SiteKind::Origin => "origin",
-        SiteKind::Axis => "axis",
-        SiteKind::Plane => "plane",
-        SiteKind::General => "general",
-    }
-}
-
-fn site_list(types: &[SiteType]) -> String {
-    let mut seen: Vec<(SiteKind, usize)> = Vec::new();
-    types
-        .iter()
-        .map(|t| {
-            let n = seen.iter().filter(|(k, _)| *k == t.kind).count() + 1;
-            seen.push((t.kind, n));
-            let name = if t.kind == SiteKind::Origin {
-                "origin".to_string()
-            } else {
-                format!("{}{n}", kind_name(t.kind))
-            };
-            format!("{name}: {} ({} atoms)", t.label, t.multiplicity)
-        })
-        .collect::<Vec<_>>()
-        .join("; ")
-}
-
 /// Parse `--sites` into atoms for group `g`.
 fn sites_molecule(g: &PointGroup, text: &str) -> Result<Vec<Placed>, CliError> {
     let ops: Vec<_> = g.ops.iter().map(|o| o.float).collect();
-    let types = geom::site_types(&ops).map_err(input)?;
-    let list = site_list(&types);
-    let mut atoms = Vec::new();
-    for (k, tok) in text
-        .split(|c: char| c.is_whitespace() || c == ';')
-        .filter(|t| !t.is_empty())
-        .enumerate()
-    {
-        let bad = |why: &str| {
-            CliError::input(format!("--sites, item {} ('{tok}'): {why}", k + 1))
-                .with_hint(format!("sites of {}: {list}", g.name()))
-        };
-        let (el, rest) = tok
-            .split_once('@')
-            .ok_or_else(|| bad("write ELEMENT@SITE[:r[,theta[,phi]]]"))?;
-        let z = geom::atomic_number(el).ok_or_else(|| bad("unknown element"))?;
-        let (site, nums) = rest.split_once(':').unwrap_or((rest, ""));
-        let stem: String = site
-            .chars()
-            .take_while(|c| c.is_ascii_alphabetic())
-            .collect();
-        let kind = match stem.as_str() {
-            "origin" => SiteKind::Origin,
-            "axis" => SiteKind::Axis,
-            "plane" => SiteKind::Plane,
-            "general" => SiteKind::General,
-            _ => return Err(bad("site must be origin, axisN, planeN or generalN")),
-        };
-        let n: usize = match &site[stem.len()..] {
-            "" => 1,
-            d => d.parse().map_err(|_| bad("bad site number"))?,
-        };
-        let t = types
-            .iter()
-            .filter(|t| t.kind == kind)
-            .nth(n.saturating_sub(1))
-            .ok_or_else(|| bad("no such site type in this group"))?;
-        let v: Vec<f64> = if nums.is_empty() {
-            Vec::new()
-        } else {
-            nums.split(',')
-                .map(|x| x.trim().parse::<f64>())
-                .collect::<Result<_, _>>()
-                .map_err(|_| bad("r, theta, phi must be numbers"))?
-        };
-        let params = SiteParams {
-            distance: v.first().copied().unwrap_or(1.0),
-            theta_deg: v.get(1).copied().unwrap_or(30.0),
-            phi_deg: v.get(2).copied().unwrap_or(20.0),
-        };
-        for a in geom::place(z, t, &params).map_err(|e| bad(&e.to_string()))? {
-            atoms.push(Placed {
-                symbol: a.symbol().to_string(),
-                position: a.position,
-            });
-        }
-    }
-    Ok(atoms)
+    let atoms = geom::build_from_sites(&ops, text).map_err(|e| {
+        let list = geom::site_types(&ops)
+            .map(|t| geom::site_list(&t).join("; "))
+            .unwrap_or_default();
+        CliError::input(format!("--sites: {e}")).with_hint(format!("sites of {}: {list}", g.name()))
+    })?;
+    Ok(atoms
+        .into_iter()
+        .map(|a| Placed {
+            symbol: a.symbol().to_string(),
+            position: a.position,
+        })
+        .collect())
 }
 
 /// Bonds of a what-if molecule: the central atom to every other atom, else by distance.
@@ -249,7 +177,7 @@ pub fn salc(a: &SalcArgs, ascii: bool) -> CliResult {
             if text.trim() == "list" {
                 let ops: Vec<_> = g.ops.iter().map(|o| o.float).collect();
                 let types = geom::site_types(&ops).map_err(input)?;
-                println!("{}", site_list(&types).replace("; ", "\n"));
+                println!("{}", geom::site_list(&types).join("\n"));
                 return Ok(());
             }
             let atoms = sites_molecule(&g, text)?;

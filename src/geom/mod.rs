@@ -14,6 +14,7 @@ mod linalg;
 pub mod molecule;
 pub mod orient;
 pub mod permute;
+pub mod site_spec;
 pub mod sites;
 pub mod symmetry;
 pub mod xyz;
@@ -24,6 +25,7 @@ pub use error::GeomError;
 pub use molecule::{Atom, Molecule};
 pub use orient::{orient, orient_with, OrientOptions, Oriented};
 pub use permute::{permutation, symmetrize};
+pub use site_spec::{build_from_sites, site_list, site_names, BuildError, SiteSpecError};
 pub use sites::{place, site_types, SiteKind, SiteParams, SiteType};
 pub use symmetry::{
     detect, group_order, near_miss_summary, near_misses, supported_groups, Detection, Family,
