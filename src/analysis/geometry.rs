@@ -18,6 +18,8 @@ pub struct BondSalcs {
     /// The set's name as the basis layer gives it.
     pub name: String,
     pub result: Result<SalcSet, String>,
+    /// The set's basis (how every operation moves each bond), for worked projections.
+    pub basis: Option<Arc<basis::Basis>>,
 }
 
 /// What the geometry layer gave for the session.
@@ -182,9 +184,13 @@ fn bond_salcs(s: &Survey) -> Result<Vec<BondSalcs>, String> {
     let all = basis::stretches(&st, &st.bonds).map_err(|e| e.to_string())?;
     Ok(basis::bond_sets(&st)
         .into_iter()
-        .map(|set| BondSalcs {
-            result: salc::salcs(&all.restricted(&set.items)).map_err(|e| e.to_string()),
-            name: set.name,
+        .map(|set| {
+            let b = all.restricted(&set.items);
+            BondSalcs {
+                result: salc::salcs(&b).map_err(|e| e.to_string()),
+                name: set.name,
+                basis: Some(Arc::new(b)),
+            }
         })
         .collect())
 }

@@ -13,12 +13,14 @@ mod classes;
 mod geometry;
 mod layers;
 mod set;
+mod spectra;
 
 pub use catalogue::{catalogue, fit, GroupEntry};
 pub use classes::{class_label, resolve_class};
 pub use geometry::{BondSalcs, GeometryAnalysis};
 pub use layers::{LayerStatus, Layers};
 pub use set::{Outcome, SetAnalysis};
+pub use spectra::{observed_bands, predict, SpectraAnalysis};
 
 use crate::group::{self, PointGroup};
 use crate::session::Session;
@@ -47,6 +49,9 @@ pub struct Analysis {
     pub geometry: Option<GeometryAnalysis>,
     /// Remarks on the session as a whole (e.g. the chosen group differs from the geometry's).
     pub notes: Vec<String>,
+    /// Activity, band counts, overtones/combinations and the band check of the session's
+    /// Γvib (from the geometry, else the first Cartesian set); full depth only.
+    pub spectra: Option<Arc<SpectraAnalysis>>,
 }
 
 impl Analysis {
@@ -86,15 +91,27 @@ pub fn analyze_to(session: &Session, depth: Depth) -> Result<Analysis, Error> {
 
 /// Analyse a session to the given depth, reading a relative XYZ path from `base`.
 pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Result<Analysis, Error> {
-    let name = session.group.as_deref().ok_or(Error::NoGroup)?;
-    let g = group::load(name).map_err(|e| Error::Group(e.to_string()))?;
-    let sets = session
+    let geometry = geometry::analyze_geometry(session, base, depth == Depth::Full);
+    let mut notes = Vec::new();
+    let g = match session.group.as_deref() {
+        Some(name) => group::load(name).map_err(|e| Error::Group(e.to_string()))?,
+        // No group chosen: a geometry that was surveyed offers its own.
+        None => match geometry.as_ref().map(|ga| &ga.survey) {
+            Some(Ok(sv)) => {
+                notes.push(format!(
+                    "no group chosen: using the geometry's {} (pick another in the Point group panel)",
+                    sv.group.name()
+                ));
+                sv.group.clone()
+            }
+            _ => return Err(Error::NoGroup),
+        },
+    };
+    let sets: Vec<SetAnalysis> = session
         .sets
         .iter()
         .map(|s| set::analyze_set(&g, s, depth))
         .collect();
-    let geometry = geometry::analyze_geometry(session, base, depth == Depth::Full);
-    let mut notes = Vec::new();
     if let Some(ga) = &geometry {
         match &ga.survey {
             Ok(sv) if sv.group.name() != g.name() => notes.push(format!(
@@ -112,6 +129,12 @@ pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Resul
             Err(e) => notes.push(format!("the geometry could not be used: {e}")),
         }
     }
+    let spectra = (depth == Depth::Full)
+        .then(|| vibrational_source(&g, &sets, geometry.as_ref()))
+        .flatten()
+        .map(|(source, group, rows)| {
+            spectra::predict(source, &group, &rows, &observed_bands(session))
+        });
     Ok(Analysis {
         group: g,
         sets,
@@ -119,5 +142,30 @@ pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Resul
         depth,
         geometry,
         notes,
+        spectra,
+    })
+}
+
+/// Γvib for the spectra: the geometry's survey (in the geometry's group), else the first
+/// Cartesian set whose Γ3N splits into vibrations.
+fn vibrational_source(
+    g: &Arc<PointGroup>,
+    sets: &[SetAnalysis],
+    geometry: Option<&GeometryAnalysis>,
+) -> Option<(String, Arc<PointGroup>, Vec<u64>)> {
+    if let Some(Ok(sv)) = geometry.map(|ga| &ga.survey) {
+        return Some((
+            format!(
+                "the geometry ({}, {})",
+                crate::report::survey::formula(&sv.oriented.molecule),
+                sv.group.name()
+            ),
+            sv.group.clone(),
+            sv.vibrations.vibrations.clone(),
+        ));
+    }
+    sets.iter().find_map(|s| match &s.vibrations {
+        Some(Ok(v)) => Some((format!("set '{}'", s.name), g.clone(), v.vibrations.clone())),
+        _ => None,
     })
 }

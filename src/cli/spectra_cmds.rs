@@ -97,10 +97,18 @@ impl GammaSource {
 
 /// Γ of fundamentals and the observed bands of a session.
 fn from_session(path: &std::path::Path, set: Option<&str>) -> Result<Fundamentals, CliError> {
-    use crate::session::{Polarization as SP, Technique as ST};
     let session = crate::session::load_file(path).map_err(|e| CliError::input(e.to_string()))?;
     let a = crate::analysis::analyze(&session)
         .map_err(|e| CliError::input(format!("{}: {e}", path.display())))?;
+    if set.is_none() {
+        if let Some(sp) = &a.spectra {
+            return Ok((
+                sp.group.clone(),
+                sp.rows.clone(),
+                crate::analysis::observed_bands(&session),
+            ));
+        }
+    }
     let pick = match set {
         Some(name) => a.sets.iter().find(|s| s.name == name).ok_or_else(|| {
             let names: Vec<&str> = a.sets.iter().map(|s| s.name.as_str()).collect();
@@ -142,34 +150,7 @@ fn from_session(path: &std::path::Path, set: Option<&str>) -> Result<Fundamental
             })?
             .to_vec(),
     };
-    let bands = session
-        .bands
-        .iter()
-        .map(|b| spectra::Band {
-            position_cm: b.position,
-            technique: match b.technique {
-                ST::Ir => spectra::Technique::Ir,
-                ST::Raman => spectra::Technique::Raman,
-            },
-            intensity: if b.intensity.trim().is_empty() {
-                None
-            } else {
-                Some(match b.intensity.trim().parse::<f64>() {
-                    Ok(v) => spectra::Intensity::Value(v),
-                    Err(_) => spectra::Intensity::Word(b.intensity.clone()),
-                })
-            },
-            polarization: b.polarization.map(|p| match p {
-                SP::Polarized => spectra::Polarization::P,
-                SP::Depolarized => spectra::Polarization::Dp,
-            }),
-            note: if b.note.is_empty() {
-                None
-            } else {
-                Some(b.note.clone())
-            },
-        })
-        .collect();
+    let bands = crate::analysis::observed_bands(&session);
     Ok((a.group.clone(), rows, bands))
 }
 

@@ -3,6 +3,7 @@
 //! Owns presentation only; never computes chemistry (that is `rep`, `group`, …).
 
 pub mod grid;
+pub mod molecule;
 pub mod reduction;
 pub mod session;
 pub mod survey;
@@ -64,6 +65,8 @@ pub fn ascii_prose(s: &str) -> String {
             '⊥' | '⟂' => " perp ",
             '→' => "->",
             '°' => " deg",
+            'Å' => "A",
+            'µ' | 'μ' => "u",
             'ᵥ' => "v",
             'ₕ' => "h",
             'ᵈ' => "d",

@@ -17,7 +17,10 @@ pub fn render(s: &Session, a: &Result<Analysis, Error>, format: Format, ascii: b
     match format {
         Format::Json => serde_json::to_string_pretty(&to_json(s, a)).unwrap_or_default() + "\n",
         Format::Latex => latex(s, a),
+        // ASCII mode promises only ASCII, the user's own notes included.
+        Format::Markdown if ascii => super::ascii_prose(&markdown(s, a, ascii)),
         Format::Markdown => markdown(s, a, ascii),
+        Format::Text if ascii => super::ascii_prose(&text(s, a, ascii)),
         Format::Text => text(s, a, ascii),
     }
 }
@@ -210,6 +213,7 @@ fn text(s: &Session, a: &Result<Analysis, Error>, ascii: bool) -> String {
             o.push_str(&crate::spectra::render::modes_markdown(m));
         }
     }
+    o.push_str(&super::molecule::render(a, Format::Text, ascii));
     for (name, m) in missing(a) {
         o.push_str(&format!("\n{name}: {m}.\n"));
     }
@@ -285,6 +289,7 @@ fn markdown(s: &Session, a: &Result<Analysis, Error>, ascii: bool) -> String {
             set_result(a, set, ascii).replace('\n', "  \n")
         ));
     }
+    o.push_str(&super::molecule::render(a, Format::Markdown, ascii));
     for (name, m) in missing(a) {
         o.push_str(&format!("\n## {name}\n\n{m}.\n"));
     }
@@ -449,6 +454,7 @@ fn latex(s: &Session, a: &Result<Analysis, Error>) -> String {
                     ));
                 }
             }
+            o.push_str(&super::molecule::render(a, Format::Latex, true));
             for (name, m) in missing(a) {
                 o.push_str(&format!("\\subsection*{{{name}}}\n{}.\n", latex_escape(m)));
             }
@@ -575,6 +581,11 @@ fn to_json(s: &Session, a: &Result<Analysis, Error>) -> Value {
                 })
                 .collect();
             out["sets"] = json!(sets);
+            if let Value::Object(extra) = super::molecule::to_json(a) {
+                for (k, v) in extra {
+                    out[k.as_str()] = v;
+                }
+            }
             let miss: Vec<Value> = missing(a)
                 .iter()
                 .map(|(n, m)| json!({"layer": n, "status": "not in this build", "note": m}))

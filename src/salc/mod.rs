@@ -25,4 +25,4 @@ pub use display::{coefficient_strings, combination, member_name, norm_factor, sa
 pub use float::float_salcs;
 pub use irreps::{real_irreps, IrrepError, Matrix, MatrixSource, RealIrrep};
 pub use project::{inverses, partner_one_images, transfer, worked_projection, Worked, WorkedLine};
-pub use render::{render, View};
+pub use render::{column_text, render, worked_lines, View};

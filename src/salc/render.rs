@@ -159,6 +159,15 @@ fn text(v: &View, nt: Notation, md: bool) -> String {
     out
 }
 
+/// The worked projection as lines: a heading, one line per operation (image and χ), the sum.
+pub fn worked_lines(w: &Worked, names: &[String], nt: Notation) -> Vec<String> {
+    worked_text(w, names, nt, false)
+        .lines()
+        .filter(|l| !l.is_empty())
+        .map(str::to_string)
+        .collect()
+}
+
 fn worked_text(w: &Worked, names: &[String], nt: Notation, md: bool) -> String {
     let mut out = format!(
         "\nWorked projection of {} onto {} (Σ χ(R)·R{}):\n",
@@ -186,7 +195,8 @@ fn worked_text(w: &Worked, names: &[String], nt: Notation, md: bool) -> String {
     out
 }
 
-fn column_text(col: &[(usize, Cyclo)], names: &[String], nt: Notation) -> String {
+/// A combination of members as text (`r₁ − r₂`, `0`), as in the worked projection.
+pub fn column_text(col: &[(usize, Cyclo)], names: &[String], nt: Notation) -> String {
     if col.is_empty() {
         return "0".into();
     }
@@ -254,7 +264,7 @@ fn latex(v: &View) -> String {
             }
             out += &format!(
                 "  {}&: {f}\\left({}\\right) \\\\\n",
-                ir.label.replace('\'', "^\\prime"),
+                crate::report::table::latex_label(&ir.label),
                 comb.replace('*', "")
             );
         }

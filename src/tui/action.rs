@@ -79,6 +79,16 @@ pub enum Action {
     RemoveSet,
     RenameSet,
     CycleKind,
+    /// Molecule: add bonds (with their symmetry images).
+    AddBond,
+    /// Molecule: remove bonds (with their symmetry images).
+    RemoveBond,
+    /// Molecule: build the geometry from the group's sites.
+    BuildSites,
+    /// Combinations: next generating member of the worked projection.
+    NextGenerator,
+    /// Combinations: next irrep of the worked projection.
+    NextIrrep,
     /// Leave a dialog, search or overlay.
     Cancel,
     /// A character typed into a text field.

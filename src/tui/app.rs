@@ -24,6 +24,9 @@ pub enum FieldPurpose {
     RenameMember,
     AddSet,
     RenameSet,
+    AddBonds,
+    RemoveBonds,
+    Sites,
 }
 
 /// A one-line text field at the bottom of the screen.
@@ -113,6 +116,8 @@ pub struct App {
     pub autosaved_gen: u64,
     /// Size of the last drawn frame (for paging and mouse hits).
     pub screen: (u16, u16),
+    /// Generating member and irrep of the worked projection (Combinations).
+    pub combos_ui: super::molecule_edit::CombosUi,
 }
 
 impl App {
@@ -138,6 +143,7 @@ impl App {
             status: None,
             group_ui: GroupUi::default(),
             members_ui: MembersUi::default(),
+            combos_ui: Default::default(),
             scroll: 0,
             undo: Vec::new(),
             redo: Vec::new(),
@@ -227,13 +233,13 @@ impl App {
         v.into_iter().map(|(_, _, e)| e).collect()
     }
 
-    fn status(&mut self, text: impl Into<String>) {
+    pub(super) fn status(&mut self, text: impl Into<String>) {
         self.status = Some(Status {
             text: text.into(),
             error: false,
         });
     }
-    fn error(&mut self, text: impl Into<String>) {
+    pub(super) fn error(&mut self, text: impl Into<String>) {
         self.status = Some(Status {
             text: text.into(),
             error: true,
@@ -241,7 +247,7 @@ impl App {
     }
 
     /// Make an edit: remember the old session for undo, change, re-analyse.
-    fn edit(&mut self, f: impl FnOnce(&mut Session)) {
+    pub(super) fn edit(&mut self, f: impl FnOnce(&mut Session)) {
         let before = self.session.clone();
         f(&mut self.session);
         if self.session == before {
@@ -473,6 +479,11 @@ impl App {
                 }
                 self.mode = Mode::Normal;
             }
+            Action::AddBond => self.bond_prompt(true),
+            Action::RemoveBond => self.bond_prompt(false),
+            Action::BuildSites => self.sites_prompt(),
+            Action::NextGenerator => self.next_generator(),
+            Action::NextIrrep => self.next_irrep(),
             Action::Char(_) | Action::Backspace => {}
             Action::Click { x, y } => super::ui::click(self, x, y),
         }
@@ -693,7 +704,7 @@ impl App {
         self.status(format!("deleted set {name} (u brings it back)"));
     }
 
-    fn ask_field(&mut self, purpose: FieldPurpose, label: &str, text: String) {
+    pub(super) fn ask_field(&mut self, purpose: FieldPurpose, label: &str, text: String) {
         self.mode = Mode::Field(Field {
             purpose,
             label: label.into(),
@@ -801,6 +812,9 @@ impl App {
             FieldPurpose::RenameSet => {
                 self.edit(|s| s.sets[si].name = text.clone());
             }
+            FieldPurpose::AddBonds => self.bonds_done(true, &text),
+            FieldPurpose::RemoveBonds => self.bonds_done(false, &text),
+            FieldPurpose::Sites => self.sites_done(&text),
         }
     }
 

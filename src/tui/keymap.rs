@@ -173,7 +173,7 @@ pub const BINDINGS: &[Binding] = &[
         &[Key::ch('n')],
         In(Panel::Members),
         Action::AddSet,
-        Some("new set"),
+        None,
         "start a new member set",
     ),
     b(
@@ -191,6 +191,43 @@ pub const BINDINGS: &[Binding] = &[
         "delete this set (u brings it back)",
     ),
     // Sets, wherever sets are shown
+    // Combinations
+    b(
+        &[Key::ch('m')],
+        In(Panel::Combinations),
+        Action::NextGenerator,
+        Some("member"),
+        "worked projection: next generating member",
+    ),
+    b(
+        &[Key::ch('i')],
+        In(Panel::Combinations),
+        Action::NextIrrep,
+        Some("irrep"),
+        "worked projection: next irrep",
+    ),
+    // Molecule
+    b(
+        &[Key::ch('+')],
+        In(Panel::Molecule),
+        Action::AddBond,
+        Some("add bond"),
+        "add bonds (atom numbers i-j); their symmetry images are added too",
+    ),
+    b(
+        &[Key::ch('x')],
+        In(Panel::Molecule),
+        Action::RemoveBond,
+        None,
+        "remove bonds (atom numbers i-j) with their symmetry images",
+    ),
+    b(
+        &[Key::ch('b')],
+        In(Panel::Molecule),
+        Action::BuildSites,
+        Some("build"),
+        "build the molecule from the group's sites (replaces the geometry; u undoes)",
+    ),
     b(
         &[Key::ch(']')],
         Everywhere,

@@ -11,6 +11,7 @@ pub mod action;
 pub mod app;
 mod input;
 pub mod keymap;
+pub mod molecule_edit;
 pub mod panels;
 pub mod signals;
 mod terminal;

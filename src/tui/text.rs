@@ -46,17 +46,42 @@ pub fn wrap(s: &str, w: usize) -> Vec<String> {
     let w = w.max(8);
     let mut out = Vec::new();
     for para in s.split('\n') {
-        let mut line = String::new();
+        if width(para) <= w {
+            // Fits: kept as written (aligned columns stay aligned).
+            out.push(para.trim_end().to_string());
+            continue;
+        }
+        // A paragraph's leading spaces indent all its lines; continuation lines of an indented
+        // paragraph hang two further spaces in, so a wrapped entry stays visibly one entry.
+        let lead: String = para.chars().take_while(|c| *c == ' ').collect();
+        let lead = if width(&lead) + 12 > w {
+            String::new()
+        } else {
+            lead
+        };
+        let hang = if lead.is_empty() {
+            String::new()
+        } else {
+            format!("{lead}  ")
+        };
+        let mut line = lead.clone();
+        let mut empty = true;
         for word in para.split_whitespace() {
-            if !line.is_empty() && width(&line) + 1 + width(word) > w {
-                out.push(std::mem::take(&mut line));
+            if !empty && width(&line) + 1 + width(word) > w {
+                out.push(std::mem::replace(&mut line, hang.clone()));
+                empty = true;
             }
-            if !line.is_empty() {
+            if !empty {
                 line.push(' ');
             }
             line.push_str(word);
+            empty = false;
         }
-        out.push(line);
+        out.push(if empty {
+            line.trim_end().to_string()
+        } else {
+            line
+        });
     }
     out
 }

@@ -203,13 +203,22 @@ fn footer(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     } else {
         keymap::footer(app.panel, th.ascii)
     };
-    for (k, words) in entries {
-        let piece = format!(" {k} {words} ");
-        let w = width(&piece);
-        if used + w > area.width as usize {
-            break;
+    // The way to the help overlay always shows; the rest fill the line in key-map order,
+    // skipping what does not fit.
+    let (help, rest): (Vec<_>, Vec<_>) = entries.into_iter().partition(|(_, w)| *w == "help");
+    let piece_w = |k: &str, words: &str| width(&format!(" {k} {words} "));
+    let reserve: usize = help.iter().map(|(k, w)| piece_w(k, w)).sum();
+    let room = (area.width as usize).saturating_sub(reserve);
+    let mut shown = Vec::new();
+    for (k, words) in rest {
+        let w = piece_w(&k, words);
+        if used + w <= room {
+            used += w;
+            shown.push((k, words));
         }
-        used += w;
+    }
+    shown.extend(help);
+    for (k, words) in shown {
         spans.push(Span::styled(format!(" {k}"), th.key()));
         spans.push(Span::raw(format!(" {words} ")));
     }

@@ -74,8 +74,23 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
                 ));
             }
             match &a.geometry {
-                Some(ga) => lines.extend(geometry_salcs(ga, th, inner.width as usize)),
-                None => lines.extend(promised(app, th)),
+                Some(ga) => {
+                    lines.extend(worked(app, ga, th, inner.width as usize));
+                    lines.extend(geometry_salcs(ga, th, inner.width as usize));
+                }
+                None => {
+                    lines.extend(promised(app, th));
+                    lines.push(Line::raw(""));
+                    for l in super::wrap_folded(
+                        th,
+                        "The SALCs themselves need to know how each operation moves the \
+                         members, not only which it leaves in place: give the session a \
+                         geometry (Molecule panel: b builds one from sites).",
+                        inner.width as usize,
+                    ) {
+                        lines.push(styled(&l, th.dim(), th));
+                    }
+                }
             }
         }
         Err(e) => lines.push(styled(&e.to_string(), th.warn(), th)),
@@ -91,7 +106,7 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
 fn geometry_salcs(ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Line<'static>> {
     let mut out = Vec::new();
     let wrapped = |out: &mut Vec<Line<'static>>, s: &str, style| {
-        for l in super::super::text::wrap(s, width) {
+        for l in super::wrap_folded(th, s, width) {
             out.push(styled(&l, style, th));
         }
     };
@@ -165,5 +180,141 @@ fn geometry_salcs(ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Line<'
             }
         }
     }
+    out
+}
+
+/// The worked projection Σ χ(R)·R m of the chosen generating member m onto the chosen
+/// irrep, then the normalized result (keys: m next member, i next irrep).
+fn worked(app: &App, ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Line<'static>> {
+    let mut out = Vec::new();
+    let gens = app.generators();
+    if gens.is_empty() {
+        return out;
+    }
+    let Some(Ok(sets)) = ga.salcs.as_deref() else {
+        return out;
+    };
+    let (k, m) = gens[app.combos_ui.member % gens.len()];
+    let bs = &sets[k];
+    let (Ok(set), Some(basis)) = (&bs.result, &bs.basis) else {
+        return out;
+    };
+    let present: Vec<usize> = (0..set.irreps.len())
+        .filter(|&x| set.multiplicities[x] > 0)
+        .collect();
+    if present.is_empty() {
+        return out;
+    }
+    let x = present[app.combos_ui.irrep % present.len()];
+    let nt = if th.ascii {
+        Notation::Ascii
+    } else {
+        Notation::Unicode
+    };
+    let w = crate::salc::worked_projection(basis, &set.irreps[x], m);
+    let names: Vec<String> = set
+        .members
+        .iter()
+        .map(|mm| crate::salc::member_name(mm, nt))
+        .collect();
+    out.push(styled(
+        &format!(
+            "Worked projection in {} ({} members; m next member, i next irrep)",
+            bs.name,
+            set.members.len()
+        ),
+        th.heading(),
+        th,
+    ));
+    // One line per class: the images of the member under the class's operations, and χ.
+    let g = &basis.group;
+    let ir = &set.irreps[x];
+    out.push(styled(
+        &format!(
+            "  {} onto {}: Σ χ(R)·R{}, class by class",
+            names[m],
+            if th.ascii {
+                ir.label.clone()
+            } else {
+                crate::group::display_label(&ir.label)
+            },
+            names[m]
+        ),
+        Default::default(),
+        th,
+    ));
+    for c in 0..g.n_classes() {
+        let images: Vec<String> = w
+            .lines
+            .iter()
+            .zip(&g.ops)
+            .filter(|(_, op)| op.class == c)
+            .map(|(l, _)| crate::salc::column_text(&l.image, &names, nt))
+            .collect();
+        let chi = w
+            .lines
+            .iter()
+            .zip(&g.ops)
+            .find(|(_, op)| op.class == c)
+            .map(|(l, _)| l.chi.text(nt))
+            .unwrap_or_default();
+        let class = crate::analysis::class_label(&g.table.classes[c], th.ascii);
+        for piece in super::wrap_folded(
+            th,
+            &format!("    {class}: {}   χ = {chi}", images.join(", ")),
+            width,
+        ) {
+            out.push(styled(&piece, Default::default(), th));
+        }
+    }
+    let sum: Vec<(usize, crate::exact::Cyclo)> = w
+        .sum
+        .iter()
+        .enumerate()
+        .filter(|(_, c)| !c.is_zero())
+        .map(|(k, c)| (k, c.clone()))
+        .collect();
+    for piece in super::wrap_folded(
+        th,
+        &format!("  sum: {}", crate::salc::column_text(&sum, &names, nt)),
+        width,
+    ) {
+        out.push(styled(&piece, Default::default(), th));
+    }
+    // Normalized: divide by the first non-zero coefficient, then by the length.
+    if let Some(inv) = w.sum.iter().find(|c| !c.is_zero()).and_then(|c| c.inv()) {
+        let coefficients: Vec<crate::exact::Cyclo> = w.sum.iter().map(|c| c * &inv).collect();
+        let norm2 = coefficients
+            .iter()
+            .fold(crate::exact::Cyclo::zero(), |acc, c| {
+                &acc + &(c * &c.conj())
+            });
+        let sc = crate::salc::Salc {
+            irrep: x,
+            label: set.irreps[x].label.clone(),
+            copy: 1,
+            partner: 1,
+            coefficients,
+            norm2,
+            role: crate::salc::Role::Plain,
+        };
+        for piece in super::wrap_folded(
+            th,
+            &format!(
+                "  normalized: {}",
+                crate::salc::salc_text(&sc, &set.members, nt)
+            ),
+            width,
+        ) {
+            out.push(styled(&piece, th.result(), th));
+        }
+    } else {
+        out.push(styled(
+            "  the sum is zero: this member generates nothing of this irrep; try another (m)",
+            th.dim(),
+            th,
+        ));
+    }
+    out.push(Line::raw(""));
     out
 }

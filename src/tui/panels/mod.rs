@@ -35,10 +35,15 @@ pub fn fold(s: &str, th: &Theme) -> String {
     }
 }
 
+/// Wrap our own wording after folding it to ASCII (ASCII mode), so widths stay right.
+pub fn wrap_folded(th: &Theme, s: &str, width: usize) -> Vec<String> {
+    super::text::wrap(&fold(s, th), width)
+}
+
 /// Lines saying plainly that a layer is not in this build.
 pub fn missing_layer(what: &str, th: &Theme, width: usize) -> Vec<Line<'static>> {
     let mut out = vec![styled("Not in this build yet", th.missing(), th)];
-    for l in super::text::wrap(&format!("{what}."), width) {
+    for l in wrap_folded(th, &format!("{what}."), width) {
         out.push(styled(&l, th.missing(), th));
     }
     out

@@ -2,7 +2,7 @@
 //! detected group and its near misses, bonds, bond sets with Γ, Γ3N and Γvib, redundancies.
 
 use super::super::app::App;
-use super::super::text::{pad, wrap};
+use super::super::text::pad;
 use super::super::theme::Theme;
 use super::{block, fold, missing_layer, styled};
 use crate::analysis::{GeometryAnalysis, LayerStatus};
@@ -74,7 +74,7 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         }
         for n in &a.notes {
             lines.push(Line::raw(""));
-            for l in wrap(&format!("Note: {n}."), inner.width as usize) {
+            for l in super::wrap_folded(th, &format!("Note: {n}."), inner.width as usize) {
                 lines.push(styled(&l, th.warn(), th));
             }
         }
@@ -96,7 +96,7 @@ fn survey_lines(ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Line<'st
     let sv = match &ga.survey {
         Ok(s) => s,
         Err(e) => {
-            for l in wrap(e, width) {
+            for l in super::wrap_folded(th, e, width) {
                 out.push(styled(&l, th.warn(), th));
             }
             return out;
@@ -128,7 +128,7 @@ fn survey_lines(ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Line<'st
                 )
             })
             .collect();
-        for l in wrap(&format!("Near misses: {}", nm.join("; ")), width) {
+        for l in super::wrap_folded(th, &format!("Near misses: {}", nm.join("; ")), width) {
             out.push(styled(&l, th.dim(), th));
         }
     }
@@ -147,7 +147,7 @@ fn survey_lines(ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Line<'st
         th.heading(),
         th,
     ));
-    for l in wrap(&bonds.join(", "), width) {
+    for l in super::wrap_folded(th, &bonds.join(", "), width) {
         out.push(styled(&l, Default::default(), th));
     }
     out.push(styled(
@@ -196,7 +196,7 @@ fn survey_lines(ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Line<'st
         ));
     }
     for n in &sv.notes {
-        for l in wrap(n, width) {
+        for l in super::wrap_folded(th, n, width) {
             out.push(styled(&l, th.dim(), th));
         }
     }

@@ -1,6 +1,6 @@
-//! Spectra: IR/Raman activity, band counts, overtones and the check of the observed band list.
-//! The spectra layer is not in this build yet, so the panel says so and shows what exists:
-//! the observed bands recorded in the session.
+//! Spectra: for the session's Γvib (geometry, else a Cartesian set) the IR/Raman activity and
+//! band counts, the check of the observed bands, and the overtones and binary combinations;
+//! the activity of each stretch/bend set's Γ; the observed bands as recorded.
 
 use super::super::app::App;
 use super::super::text::pad;
@@ -24,40 +24,98 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         }
     }
     if let Ok(a) = &app.analysis {
+        let width = inner.width as usize;
+        let text_lines = |lines: &mut Vec<Line<'static>>, md: &str| {
+            for l in md.lines() {
+                if l.starts_with("|---") {
+                    continue;
+                }
+                for piece in super::wrap_folded(th, l, width) {
+                    lines.push(styled(&piece, ratatui::style::Style::default(), th));
+                }
+            }
+        };
+        match &a.spectra {
+            Some(sp) => {
+                lines.push(styled(
+                    &format!("Fundamentals: Γvib of {}", sp.source),
+                    th.heading(),
+                    th,
+                ));
+                match &sp.modes {
+                    Ok(r) => text_lines(
+                        &mut lines,
+                        &crate::spectra::render::modes_markdown(r).replacen("Γ =", "Γvib =", 1),
+                    ),
+                    Err(e) => lines.push(styled(e, th.warn(), th)),
+                }
+                lines.push(Line::raw(""));
+                match &sp.check {
+                    None => lines.push(styled(
+                        "Band-list check: no observed bands in the session ([[band]] entries)",
+                        th.dim(),
+                        th,
+                    )),
+                    Some(Ok(c)) => {
+                        lines.push(styled(
+                            "Band-list check (candidates, not assignments)",
+                            th.heading(),
+                            th,
+                        ));
+                        text_lines(&mut lines, &crate::spectra::render::check_markdown(c));
+                    }
+                    Some(Err(e)) => lines.push(styled(e, th.warn(), th)),
+                }
+                lines.push(Line::raw(""));
+                match &sp.combinations {
+                    Ok(c) => {
+                        lines.push(styled(
+                            &format!(
+                                "Overtones and binary combinations ({} levels)",
+                                c.levels.len()
+                            ),
+                            th.heading(),
+                            th,
+                        ));
+                        text_lines(
+                            &mut lines,
+                            &crate::spectra::render::combinations_markdown(c),
+                        );
+                    }
+                    Err(e) => lines.push(styled(e, th.warn(), th)),
+                }
+                lines.push(Line::raw(""));
+            }
+            None if a.depth == crate::analysis::Depth::Quick => {
+                lines.push(styled("Working out the spectra…", th.dim(), th));
+                lines.push(Line::raw(""));
+            }
+            None => {
+                for l in super::wrap_folded(
+                    th,
+                    "No Γvib yet: give the session a geometry, or a Cartesian set of all the \
+                     atoms, to predict activity, overtones and combinations and to check the \
+                     observed bands.",
+                    width,
+                ) {
+                    lines.push(styled(&l, th.dim(), th));
+                }
+                lines.push(Line::raw(""));
+            }
+        }
         for set in &a.sets {
-            let Some(m) = &set.modes else { continue };
+            let Some(Ok(r)) = &set.modes else { continue };
+            if set.vibrations.is_some() && a.spectra.is_some() {
+                continue;
+            }
             lines.push(styled(
-                &format!("{} ({})", set.name, set.kind.name()),
+                &format!("{} ({}): activity of its Γ", set.name, set.kind.name()),
                 th.heading(),
                 th,
             ));
-            match m {
-                Ok(r) => {
-                    let what = if set.vibrations.is_some() {
-                        "Γvib"
-                    } else {
-                        "Γ"
-                    };
-                    for l in crate::spectra::render::modes_markdown(r).lines() {
-                        let l = l.replacen("Γ =", &format!("{what} ="), 1);
-                        if l.starts_with("|---") {
-                            continue;
-                        }
-                        for piece in super::super::text::wrap(&l, inner.width as usize) {
-                            lines.push(styled(&piece, ratatui::style::Style::default(), th));
-                        }
-                    }
-                }
-                Err(e) => lines.push(styled(e, th.warn(), th)),
-            }
+            text_lines(&mut lines, &crate::spectra::render::modes_markdown(r));
             lines.push(Line::raw(""));
         }
-        lines.push(styled(
-            "Band-list check, overtones and descent: `salcdesk bands`, `combos`, `descend` (not yet in the workspace).",
-            th.dim(),
-            th,
-        ));
-        lines.push(Line::raw(""));
     }
     let bands = &app.session.bands;
     lines.push(styled(
