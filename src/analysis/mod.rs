@@ -13,12 +13,14 @@ mod classes;
 mod geometry;
 mod layers;
 mod set;
+mod ticks;
 
 pub use catalogue::{catalogue, fit, GroupEntry};
 pub use classes::{class_label, resolve_class};
 pub use geometry::{BondSalcs, GeometryAnalysis};
 pub use layers::{LayerStatus, Layers};
 pub use set::{Outcome, SetAnalysis};
+pub use ticks::GeometryTicks;
 
 use crate::group::{self, PointGroup};
 use crate::session::Session;
@@ -94,6 +96,7 @@ pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Resul
         .map(|s| set::analyze_set(&g, s, depth))
         .collect();
     let geometry = geometry::analyze_geometry(session, base, depth == Depth::Full);
+    let sets = ticks::check_sets(&g, session, geometry.as_ref(), sets);
     let mut notes = Vec::new();
     if let Some(ga) = &geometry {
         match &ga.survey {

@@ -79,6 +79,8 @@ pub enum Action {
     RemoveSet,
     RenameSet,
     CycleKind,
+    /// Replace the current set's ticks with the geometry's (members that name their atoms).
+    TakeGeometryTicks,
     /// Leave a dialog, search or overlay.
     Cancel,
     /// A character typed into a text field.
