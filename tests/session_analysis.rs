@@ -16,6 +16,7 @@ fn set(kind: SetKind, ticks: &[&[&str]]) -> MemberSet {
             .map(|(k, t)| Member {
                 name: format!("m{}", k + 1),
                 unmoved_by: t.iter().map(|c| c.to_string()).collect(),
+                atoms: None,
             })
             .collect(),
     }
@@ -136,6 +137,7 @@ fn a_c60_sized_cartesian_set_gives_the_known_vibrations() {
             } else {
                 vec!["E".into()]
             },
+            atoms: None,
         })
         .collect();
     let s = Session {

@@ -203,3 +203,114 @@ fn recovery_files_are_offered_back_only_when_they_differ() {
     rec.clear();
     assert!(rec.pending(&s).is_none());
 }
+
+/// A Td session whose stretches and one bend name their atoms (atoms of an MX4, 1 = M).
+const WITH_ATOMS: &str = r#"format = 1
+group = "Td"
+
+[[set]]
+name = "M-X stretches"
+kind = "stretch"
+members = ["r1", "r2", "r3", "r4"]
+
+[set.unmoved]
+r1 = ["E", "8C3", "6sd"]
+r2 = ["E"]
+r3 = ["E"]
+r4 = ["E", "6sd"]
+
+[set.atoms]
+r1 = [1, 2]
+r2 = [1, 3]
+r4 = [1, 5]
+
+[[set]]
+name = "bends"
+kind = "bend"
+members = ["a 1", "a2"]
+
+[set.atoms]
+"a 1" = [2, 1, 3]
+"#;
+
+#[test]
+fn member_atoms_load_and_round_trip_through_save_and_reload() {
+    let s = parse("atoms.toml", WITH_ATOMS).unwrap_or_else(|e| panic!("{e}"));
+    let m = &s.sets[0].members;
+    assert_eq!(m[0].atoms, Some(vec![1, 2]));
+    assert_eq!(m[2].atoms, None, "r3 names no atoms");
+    assert_eq!(m[3].atoms, Some(vec![1, 5]));
+    assert_eq!(s.sets[1].members[0].atoms, Some(vec![2, 1, 3]));
+    assert_eq!(s.sets[1].members[1].atoms, None);
+    let text = session::to_toml(&s);
+    assert!(
+        text.contains("[set.atoms]\nr1 = [1, 2]\nr2 = [1, 3]\nr4 = [1, 5]\n"),
+        "{text}"
+    );
+    assert!(text.contains("\"a 1\" = [2, 1, 3]"), "{text}");
+    let again = parse("again.toml", &text).unwrap_or_else(|e| panic!("{e}\n{text}"));
+    assert_eq!(again, s);
+    assert_eq!(session::to_toml(&again), text);
+    // and through a file on disk
+    let dir = tmpdir("atoms");
+    let p = dir.join("atoms.toml");
+    session::save(&s, &p).unwrap();
+    assert_eq!(session::load_file(&p).unwrap(), s);
+}
+
+#[test]
+fn member_atoms_that_do_not_fit_are_located() {
+    let with = |atoms: &str| WITH_ATOMS.replace("r1 = [1, 2]\n", atoms);
+    // wrong count for a stretch: the list is pointed at (line 17, column 6)
+    let e = parse("c.toml", &with("r1 = [1, 2, 3]\n")).unwrap_err();
+    assert_eq!((e.line, e.column), (16, 6), "{e}");
+    assert!(
+        e.message.contains("member 'r1' of set 'M-X stretches'"),
+        "{e}"
+    );
+    assert!(
+        e.message.contains("two atoms") && e.message.contains("found 3"),
+        "{e}"
+    );
+    // atom 0: the number itself
+    let e = parse("z.toml", &with("r1 = [1, 0]\n")).unwrap_err();
+    assert_eq!((e.line, e.column), (16, 10), "{e}");
+    assert!(e.message.contains("count from 1, found 0"), "{e}");
+    // the same atom twice
+    let e = parse("d.toml", &with("r1 = [2, 2]\n")).unwrap_err();
+    assert_eq!((e.line, e.column), (16, 10), "{e}");
+    assert!(e.message.contains("atom 2 is named twice"), "{e}");
+    // a name that is no member: the key
+    let e = parse("n.toml", &with("r9 = [1, 2]\n")).unwrap_err();
+    assert_eq!((e.line, e.column), (16, 1), "{e}");
+    assert!(
+        e.message
+            .contains("'r9' is not a member of set 'M-X stretches'"),
+        "{e}"
+    );
+    // a bend needs three atoms
+    let e = parse("b.toml", &WITH_ATOMS.replace("[2, 1, 3]", "[2, 1]")).unwrap_err();
+    assert_eq!(e.line, 26, "{e}");
+    assert!(
+        e.message.contains("a bend member sits on three atoms"),
+        "{e}"
+    );
+    // not numbers
+    let e = parse("s.toml", &with("r1 = [\"Sn\", 2]\n")).unwrap_err();
+    assert_eq!(e.line, 16, "{e}");
+}
+
+#[test]
+fn atoms_that_no_longer_fit_the_kind_are_not_written() {
+    // Changing a set's kind in the workspace keeps the members' atoms in memory; a save must
+    // still give a file that loads, so atoms that do not fit the new kind are left out.
+    let mut s = parse("atoms.toml", WITH_ATOMS).unwrap();
+    s.sets[0].kind = session::SetKind::Bend;
+    let text = session::to_toml(&s);
+    let again = parse("again.toml", &text).unwrap_or_else(|e| panic!("{e}\n{text}"));
+    assert!(again.sets[0].members.iter().all(|m| m.atoms.is_none()));
+    assert_eq!(again.sets[1].members[0].atoms, Some(vec![2, 1, 3]));
+    // back to stretch: they fit again and are written
+    s.sets[0].kind = session::SetKind::Stretch;
+    assert_eq!(parse("x.toml", &session::to_toml(&s)).unwrap(), s);
+}

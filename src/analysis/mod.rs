@@ -14,6 +14,7 @@ mod geometry;
 mod layers;
 mod set;
 mod spectra;
+mod ticks;
 
 pub use catalogue::{catalogue, fit, GroupEntry};
 pub use classes::{class_label, resolve_class};
@@ -21,6 +22,7 @@ pub use geometry::{BondSalcs, GeometryAnalysis};
 pub use layers::{LayerStatus, Layers};
 pub use set::{Outcome, SetAnalysis};
 pub use spectra::{observed_bands, predict, SpectraAnalysis};
+pub use ticks::GeometryTicks;
 
 use crate::group::{self, PointGroup};
 use crate::session::Session;
@@ -112,6 +114,7 @@ pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Resul
         .iter()
         .map(|s| set::analyze_set(&g, s, depth))
         .collect();
+    let sets = ticks::check_sets(&g, session, geometry.as_ref(), sets);
     if let Some(ga) = &geometry {
         match &ga.survey {
             Ok(sv) if sv.group.name() != g.name() => notes.push(format!(

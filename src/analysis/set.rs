@@ -2,6 +2,7 @@
 
 use super::cache;
 use super::classes::resolve_class;
+use super::ticks::GeometryTicks;
 use super::Depth;
 use crate::exact::Cyclo;
 use crate::group::{mat_det, mat_trace, PointGroup};
@@ -49,6 +50,9 @@ pub struct SetAnalysis {
     /// describes: Γvib for a Cartesian set, Γ itself for internal coordinates (stretches,
     /// bends); `None` for orbital-type sets (scalar, pi, axial) and impossible χ.
     pub modes: Option<Result<crate::spectra::ModesReport, String>>,
+    /// The ticks the session's geometry expects for members that name their atoms, and the
+    /// cells that differ (see `ticks`).
+    pub geometry_ticks: GeometryTicks,
 }
 
 impl SetAnalysis {
@@ -143,6 +147,8 @@ pub(super) fn analyze_set(g: &Arc<PointGroup>, s: &MemberSet, depth: Depth) -> S
         per_member,
         unknown_ticks,
         outcome,
+        // Filled in by `ticks::check_sets`, which knows the geometry.
+        geometry_ticks: GeometryTicks::none(s.members.len(), "not checked"),
     }
 }
 

@@ -84,6 +84,8 @@ struct RawSet {
     members: Vec<Spanned<String>>,
     #[serde(default)]
     unmoved: BTreeMap<String, Spanned<Vec<Spanned<String>>>>,
+    #[serde(default)]
+    atoms: BTreeMap<Spanned<String>, Spanned<Vec<Spanned<i64>>>>,
 }
 
 #[derive(Deserialize)]
@@ -390,11 +392,78 @@ fn member_set(s: &RawSet, at: &At) -> Result<MemberSet, LoadError> {
             m.unmoved_by.push(c.to_string());
         }
     }
+    member_atoms(s, kind, &mut members, at)?;
     Ok(MemberSet {
         name: s.name.get_ref().clone(),
         kind,
         members,
     })
+}
+
+/// `[set.atoms]`: per member, the atoms it sits on (1-based; as many as the kind needs, no atom
+/// twice). Whether the atoms exist is checked by the analysis, which knows the geometry.
+fn member_atoms(
+    s: &RawSet,
+    kind: SetKind,
+    members: &mut [Member],
+    at: &At,
+) -> Result<(), LoadError> {
+    let set = s.name.get_ref();
+    // In file order, so that the first problem in the file is the one reported.
+    let mut named: Vec<_> = s.atoms.iter().collect();
+    named.sort_by_key(|(k, _)| k.span().start);
+    for (name, list) in named {
+        let name_str = name.get_ref();
+        let Some(m) = members.iter_mut().find(|m| &m.name == name_str) else {
+            return Err(at(
+                name.span().start,
+                format!(
+                    "[set.atoms]: '{name_str}' is not a member of set '{set}' (expected one of: {})",
+                    s.members
+                        .iter()
+                        .map(|m| m.get_ref().as_str())
+                        .collect::<Vec<_>>()
+                        .join(", ")
+                ),
+            ));
+        };
+        let v = list.get_ref();
+        let want = kind.atoms_per_member();
+        if v.len() != want {
+            return Err(at(
+                list.span().start,
+                format!(
+                    "member '{name_str}' of set '{set}': a {} member sits on {}, found {} atom \
+                     number(s)",
+                    kind.name(),
+                    kind.atoms_shape(),
+                    v.len()
+                ),
+            ));
+        }
+        let mut atoms: Vec<usize> = Vec::with_capacity(want);
+        for n in v {
+            let x = *n.get_ref();
+            if x < 1 {
+                return Err(at(
+                    n.span().start,
+                    format!(
+                        "member '{name_str}' of set '{set}': atom numbers count from 1, found {x}"
+                    ),
+                ));
+            }
+            let x = usize::try_from(x).unwrap_or(usize::MAX);
+            if atoms.contains(&x) {
+                return Err(at(
+                    n.span().start,
+                    format!("member '{name_str}' of set '{set}': atom {x} is named twice"),
+                ));
+            }
+            atoms.push(x);
+        }
+        m.atoms = Some(atoms);
+    }
+    Ok(())
 }
 
 fn band(b: &RawBand, at: &At) -> Result<Band, LoadError> {

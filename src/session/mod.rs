@@ -38,6 +38,11 @@
 //! r1 = ["E", "C2'", "sh", "sv"]   # operation leaves it in place (ASCII class symbols,
 //! r2 = ["E", "sh"]                # with or without the count: "2C4" or "C4")
 //!
+//! [set.atoms]                     # optional: the atoms a member sits on (numbers from 1, in
+//! r1 = [1, 2]                     # the geometry's atom order): one for scalar, cartesian
+//! r2 = [1, 3]                     # and axial; two (a bond) for stretch and pi; three (end,
+//!                                 # apex, end) for bend. Members may be left out.
+//!
 //! [[band]]                        # observed bands, any number
 //! position = 330.0                # cm⁻¹
 //! technique = "Raman"             # IR | Raman
@@ -50,6 +55,14 @@
 //! e.g. the representative the table describes) — it leaves this member where it was. The
 //! number of ticks in a column is the unmoved count of that class. `E` leaves every member in
 //! place; it is always counted, written or not.
+//!
+//! With a `[geometry]` whose detected group is the session's group, the ticks of every member
+//! that names its atoms are compared with the geometry: the chosen operation of a class (the
+//! first of the class in the table's operation list, in the table's standard orientation)
+//! leaves a bond in place when it maps its two atoms onto themselves (either way round for a
+//! stretch, each onto itself for pi), an angle when it keeps the apex and maps the two ends onto
+//! themselves, a one-atom member when it keeps the atom. Whether the atoms exist is checked
+//! then, against the geometry.
 //!
 //! Kinds say what one unmoved member contributes to χ: `stretch`, `bend` and `scalar` 1 (a bond
 //! vector, an angle, an s-type orbital); `cartesian` the trace of the operation's matrix (an

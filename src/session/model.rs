@@ -70,6 +70,11 @@ pub struct Member {
     /// ASCII class symbols (as written; `analysis` resolves them against the table). `E` is
     /// always present after loading.
     pub unmoved_by: Vec<String>,
+    /// The atoms the member sits on (numbers from 1, in the geometry's atom order), when
+    /// named: one for scalar, cartesian and axial members, two (a bond) for stretch and pi,
+    /// three (end, apex, end) for bend. `analysis` compares the ticks with the geometry
+    /// through them.
+    pub atoms: Option<Vec<usize>>,
 }
 
 impl Member {
@@ -78,6 +83,23 @@ impl Member {
         Member {
             name: name.into(),
             unmoved_by: vec!["E".into()],
+            atoms: None,
+        }
+    }
+
+    /// Whether the named atoms fit a member of `kind`: as many as it sits on
+    /// ([`SetKind::atoms_per_member`]), numbered from 1 (and small enough to write), no atom
+    /// twice.
+    pub fn atoms_fit(&self, kind: SetKind) -> bool {
+        match &self.atoms {
+            None => true,
+            Some(a) => {
+                a.len() == kind.atoms_per_member()
+                    && a.iter().all(|&n| n >= 1 && i64::try_from(n).is_ok())
+                    && a.iter()
+                        .enumerate()
+                        .all(|(i, x)| a[..i].iter().all(|y| y != x))
+            }
         }
     }
 }
@@ -131,6 +153,23 @@ impl SetKind {
             SetKind::Cartesian => "trace of R per unmoved atom (1+2cos θ, or −1+2cos θ)",
             SetKind::Pi => "trace of R − 1 per unmoved bond",
             SetKind::Axial => "det R · trace R per unmoved atom",
+        }
+    }
+    /// How many atoms one member sits on: 2 for a bond (stretch, pi), 3 for an angle (bend:
+    /// end, apex, end), 1 otherwise.
+    pub fn atoms_per_member(self) -> usize {
+        match self {
+            SetKind::Stretch | SetKind::Pi => 2,
+            SetKind::Bend => 3,
+            SetKind::Scalar | SetKind::Cartesian | SetKind::Axial => 1,
+        }
+    }
+    /// The atoms of one member, in words (for messages).
+    pub fn atoms_shape(self) -> &'static str {
+        match self {
+            SetKind::Stretch | SetKind::Pi => "two atoms (a bond, e.g. [1, 2])",
+            SetKind::Bend => "three atoms (end, apex, end, e.g. [2, 1, 3])",
+            SetKind::Scalar | SetKind::Cartesian | SetKind::Axial => "one atom (e.g. [1])",
         }
     }
     /// The next kind, for cycling through them.

@@ -97,6 +97,21 @@ pub fn to_toml(s: &Session) -> String {
                 o.push_str(&format!("{} = {}\n", key(&m.name), list(&m.unmoved_by)));
             }
         }
+        // Atoms that do not fit the kind (e.g. after the kind was changed) are left out: the
+        // file must load again, and the loader refuses them.
+        let placed: Vec<(&str, &[usize])> = set
+            .members
+            .iter()
+            .filter(|m| m.atoms_fit(set.kind))
+            .filter_map(|m| m.atoms.as_deref().map(|a| (m.name.as_str(), a)))
+            .collect();
+        if !placed.is_empty() {
+            o.push_str("\n[set.atoms]\n");
+            for (name, atoms) in placed {
+                let nums: Vec<String> = atoms.iter().map(|n| n.to_string()).collect();
+                o.push_str(&format!("{} = [{}]\n", key(name), nums.join(", ")));
+            }
+        }
     }
     for b in &s.bands {
         o.push_str("\n[[band]]\n");

@@ -89,6 +89,8 @@ pub enum Action {
     NextGenerator,
     /// Combinations: next irrep of the worked projection.
     NextIrrep,
+    /// Replace the current set's ticks with the geometry's (members that name their atoms).
+    TakeGeometryTicks,
     /// Leave a dialog, search or overlay.
     Cancel,
     /// A character typed into a text field.

@@ -473,6 +473,11 @@ impl App {
                     self.status(format!("kind: {} — {}", k.name(), k.contribution()));
                 }
             }
+            Action::TakeGeometryTicks => {
+                if self.panel == Panel::Members {
+                    self.take_geometry_ticks()
+                }
+            }
             Action::Cancel => {
                 if self.group_ui.typing {
                     self.group_ui.typing = false;
@@ -662,6 +667,55 @@ impl App {
             m.unmoved_by
                 .sort_by_key(|c| analysis::resolve_class(t, c).unwrap_or(usize::MAX));
         });
+    }
+
+    /// Replace the ticks of the current set's members that name their atoms with the ones the
+    /// geometry gives (one undoable edit).
+    pub fn take_geometry_ticks(&mut self) {
+        let Some((a, s)) = self.current_set() else {
+            return self.status("no member set yet: n starts one");
+        };
+        let gt = &s.geometry_ticks;
+        if gt.compared() == 0 {
+            let why = gt.reason.clone().unwrap_or_default();
+            return self.status(format!("nothing to take from the geometry: {why}"));
+        }
+        let n = gt.disagreements.len();
+        if n == 0 {
+            return self.status("the ticks already agree with the geometry");
+        }
+        let classes: Vec<String> = a
+            .group
+            .table
+            .classes
+            .iter()
+            .map(|c| c.ascii.clone())
+            .collect();
+        // Only the rows that disagree are rewritten (in table order, like ticking does).
+        let rows: Vec<(usize, Vec<bool>)> = gt
+            .expected
+            .iter()
+            .enumerate()
+            .filter(|(mi, _)| gt.disagreements.iter().any(|(m, _)| m == mi))
+            .filter_map(|(mi, row)| row.clone().map(|r| (mi, r)))
+            .collect();
+        let si = self.members_ui.set;
+        self.edit(|s| {
+            for (mi, row) in &rows {
+                if let Some(m) = s.sets[si].members.get_mut(*mi) {
+                    m.unmoved_by = classes
+                        .iter()
+                        .zip(row)
+                        .filter(|(_, &on)| on)
+                        .map(|(c, _)| c.clone())
+                        .collect();
+                }
+            }
+        });
+        self.status(format!(
+            "took the geometry's ticks: {n} cell(s) changed in {} member(s) (u undoes)",
+            rows.len()
+        ));
     }
 
     fn add_member_prompt(&mut self) {

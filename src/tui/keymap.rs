@@ -170,6 +170,13 @@ pub const BINDINGS: &[Binding] = &[
         "change the kind of this set (stretch, bend, scalar, cartesian, pi, axial)",
     ),
     b(
+        &[Key::ch('m')],
+        In(Panel::Members),
+        Action::TakeGeometryTicks,
+        None,
+        "take the molecule's ticks for this set (members that name their atoms; u undoes)",
+    ),
+    b(
         &[Key::ch('n')],
         In(Panel::Members),
         Action::AddSet,

@@ -1,14 +1,19 @@
 //! Members: the tick grid of the current member set — one row per member, one column per
 //! class, a mark where the class's chosen operation leaves the member in place — with the
-//! unmoved counts, χ and the result underneath, updated on every tick.
+//! unmoved counts, χ and the result underneath, updated on every tick. Where the session has a
+//! geometry and a member names its atoms, a cell whose tick the geometry contradicts is marked
+//! with `!` before its mark (in the warning style), and a line under the grid counts them.
 
+use super::super::action::Action;
 use super::super::app::App;
+use super::super::keymap;
 use super::super::text::{pad, pad_left, trunc, width};
 use super::super::theme::Theme;
 use super::{block, fold, styled};
 use crate::analysis::{Analysis, Outcome, SetAnalysis};
 use crate::exact::Notation;
 use ratatui::layout::Rect;
+use ratatui::style::Modifier;
 use ratatui::text::{Line, Span};
 use ratatui::widgets::Paragraph;
 use ratatui::Frame;
@@ -31,6 +36,56 @@ pub struct Grid {
 /// Lines above the grid rows (set line, header) and below (counts, χ, result).
 const ABOVE: u16 = 2;
 const BELOW: u16 = 4;
+
+/// Marks of a cell the geometry contradicts: ticked but moved, unticked but left in place.
+fn contradicted_marks(th: &Theme) -> (&'static str, &'static str) {
+    if th.ascii {
+        ("!x", "!.")
+    } else {
+        ("!●", "!·")
+    }
+}
+
+/// The key that takes the geometry's ticks, as the key map has it.
+fn take_key(ascii: bool) -> String {
+    keymap::BINDINGS
+        .iter()
+        .find(|b| b.action == Action::TakeGeometryTicks)
+        .map(|b| keymap::keys_label(b, ascii))
+        .unwrap_or_default()
+}
+
+/// The line under the grid about the geometry (only when the session has one), and whether it
+/// reports contradicted cells.
+fn geometry_line(a: &Analysis, s: &SetAnalysis, ascii: bool) -> Option<(String, bool)> {
+    a.geometry.as_ref()?;
+    let gt = &s.geometry_ticks;
+    let n = gt.disagreements.len();
+    let checked = gt.compared();
+    let text = if n > 0 {
+        format!(
+            "{n} cell{} disagree{} with the geometry (marked !): {} takes the geometry's ticks",
+            if n == 1 { "" } else { "s" },
+            if n == 1 { "s" } else { "" },
+            take_key(ascii)
+        )
+    } else if checked > 0 {
+        let mut t = format!(
+            "ticks agree with the geometry ({checked} member{} checked)",
+            if checked == 1 { "" } else { "s" }
+        );
+        if let Some(r) = &gt.reason {
+            t.push_str(&format!("; {r}"));
+        }
+        t
+    } else {
+        format!(
+            "geometry: {}",
+            gt.reason.as_deref().unwrap_or("ticks not checked")
+        )
+    };
+    Some((text, n > 0))
+}
 
 fn chi_texts(s: &SetAnalysis, nt: Notation) -> Vec<String> {
     match &*s.outcome {
@@ -76,7 +131,8 @@ pub fn grid(area: Rect, app: &App, a: &Analysis, s: &SetAnalysis) -> Grid {
         cols.push((c, x, *w));
         x += w;
     }
-    let visible_rows = inner.height.saturating_sub(ABOVE + BELOW).max(1) as usize;
+    let below = BELOW + u16::from(a.geometry.is_some());
+    let visible_rows = inner.height.saturating_sub(ABOVE + below).max(1) as usize;
     let row = app.members_ui.row;
     let first_row = if row < visible_rows {
         0
@@ -141,6 +197,7 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         Notation::Unicode
     };
     let (tick, blank) = th.marks();
+    let (bad_tick, bad_blank) = contradicted_marks(th);
     let mut lines: Vec<Line> = Vec::new();
     // Set line.
     let nsets = a.sets.len();
@@ -188,8 +245,18 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         let mut spans = vec![Span::styled(pad(m, g.name_w as usize), name_st)];
         for (c, _, w) in &g.cols {
             let on = s.grid[mi][*c];
-            let mark = if on { tick } else { blank };
-            let mut st = if on { th.tick() } else { th.dim() };
+            let contradicted = s.geometry_ticks.disagrees(mi, *c);
+            let mark = match (on, contradicted) {
+                (true, false) => tick,
+                (false, false) => blank,
+                (true, true) => bad_tick,
+                (false, true) => bad_blank,
+            };
+            let mut st = match (on, contradicted) {
+                (_, true) => th.warn().add_modifier(Modifier::BOLD),
+                (true, false) => th.tick(),
+                (false, false) => th.dim(),
+            };
             if mi == app.members_ui.row && *c == app.members_ui.col {
                 st = th.cursor();
             }
@@ -231,7 +298,20 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         trunc(&fold(&first, th), inner.width as usize),
         st,
     )));
-    let legend = if s.multiplicities().is_none() && !s.members.is_empty() {
+    let geo = geometry_line(a, s, app.ascii);
+    if let Some((text, bad)) = &geo {
+        let st = if *bad { th.warn() } else { th.dim() };
+        lines.push(Line::from(Span::styled(
+            trunc(&fold(text, th), inner.width as usize),
+            st,
+        )));
+    }
+    let legend = if geo.as_ref().is_some_and(|(_, bad)| *bad) {
+        format!(
+            "{bad_tick} ticked but the geometry moves it; {bad_blank} unticked but the geometry \
+             leaves it in place"
+        )
+    } else if s.multiplicities().is_none() && !s.members.is_empty() {
         "3 Representation shows the worked sum and single-class fixes".to_string()
     } else {
         format!(
