@@ -99,6 +99,17 @@ fn rescue_copy(app: &App) -> Option<(PathBuf, String)> {
         .then(|| (app.recovery.path.clone(), session::to_toml(&app.session)))
 }
 
+/// Test hook (tests/tui_panic_restore.rs): when `SALCDESK_TEST_PANIC_ON_KEY` holds one
+/// character, pressing that key panics, so the panic path (rescue file, terminal given back)
+/// can be tested on the real binary. Unset, it does nothing.
+fn panic_on_test_key(k: keymap::Key) {
+    if let (keymap::Code::Char(c), false) = (k.code, k.ctrl) {
+        if std::env::var("SALCDESK_TEST_PANIC_ON_KEY").is_ok_and(|v| v.chars().eq([c])) {
+            panic!("test panic: key {c:?} pressed with SALCDESK_TEST_PANIC_ON_KEY set");
+        }
+    }
+}
+
 fn event_loop(
     term: &mut terminal::Term,
     app: &mut App,
@@ -146,7 +157,10 @@ fn event_loop(
                     }
                 };
                 match input::translate(ev) {
-                    input::Input::Key(k) => app.handle_key(k),
+                    input::Input::Key(k) => {
+                        panic_on_test_key(k);
+                        app.handle_key(k)
+                    }
                     input::Input::Action(a) => app.apply(a),
                     input::Input::Resize => {
                         let _ = term.autoresize();
