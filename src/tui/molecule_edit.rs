@@ -109,10 +109,9 @@ impl App {
             }
             _ => return self.error(format!("{g} is linear: build in a finite group")),
         };
-        self.status(format!("sites of {g}: {hint}"));
         self.ask_field(
             FieldPurpose::Sites,
-            "Atoms on sites (e.g. Co@origin Cl@axis1:2.3)",
+            &format!("{g} sites ({hint}), e.g. Co@origin Cl@axis1:2.3"),
             String::new(),
         );
     }

@@ -281,14 +281,9 @@ fn worked(app: &App, ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Lin
     ) {
         out.push(styled(&piece, Default::default(), th));
     }
-    // Normalized: divide by the first non-zero coefficient, then by the length.
-    if let Some(inv) = w.sum.iter().find(|c| !c.is_zero()).and_then(|c| c.inv()) {
-        let coefficients: Vec<crate::exact::Cyclo> = w.sum.iter().map(|c| c * &inv).collect();
-        let norm2 = coefficients
-            .iter()
-            .fold(crate::exact::Cyclo::zero(), |acc, c| {
-                &acc + &(c * &c.conj())
-            });
+    // Normalized: the same shortest form the SALC list uses, over its length.
+    if w.sum.iter().any(|c| !c.is_zero()) {
+        let (coefficients, norm2) = crate::salc::display_form(w.sum.clone());
         let sc = crate::salc::Salc {
             irrep: x,
             label: set.irreps[x].label.clone(),

@@ -117,20 +117,14 @@ fn survey_lines(ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Line<'st
         th.heading(),
         th,
     ));
-    if !sv.near_misses.is_empty() {
-        let nm: Vec<String> = sv
-            .near_misses
-            .iter()
-            .map(|n| {
-                format!(
-                    "{} at {} Å (dev {:.3})",
-                    n.group, n.tolerance, n.max_deviation
-                )
-            })
-            .collect();
-        for l in super::wrap_folded(th, &format!("Near misses: {}", nm.join("; ")), width) {
-            out.push(styled(&l, th.dim(), th));
+    let mut nm = crate::report::survey::near_miss_line(sv, th.ascii);
+    if sv.near_misses.iter().all(|n| n.group == g.name()) {
+        if let Some(top) = sv.near_misses.last() {
+            nm.push_str(&format!("; no higher symmetry up to {} Å", top.tolerance));
         }
+    }
+    for l in super::wrap_folded(th, &format!("Looser tolerances: {nm}"), width) {
+        out.push(styled(&l, th.dim(), th));
     }
     let atoms = &sv.oriented.molecule.atoms;
     let label = |i: usize| format!("{}{}", atoms[i].symbol(), i + 1);
@@ -191,6 +185,16 @@ fn survey_lines(ga: &GeometryAnalysis, th: &Theme, width: usize) -> Vec<Line<'st
     if sv.redundant.iter().any(|n| *n > 0) {
         out.push(styled(
             &format!("Redundant internal combinations: {}", sum(&sv.redundant)),
+            th.dim(),
+            th,
+        ));
+    }
+    if sv.uncovered.iter().any(|n| *n > 0) {
+        out.push(styled(
+            &format!(
+                "Not covered by these stretches and bends: {}",
+                sum(&sv.uncovered)
+            ),
             th.dim(),
             th,
         ));
