@@ -274,12 +274,32 @@ fn table_and_number_cases() -> Vec<Case> {
     ]
 }
 
+fn session_and_molecule_cases() -> Vec<Case> {
+    const W: &[u8] = b"3\nw\nO 0 0 0.1173\nH 0 0.7572 -0.4692\nH 0 -0.7572 -0.4692\n";
+    vec![
+        case("session_newer_format", &["report", "{f}"], Some(b"format = 99\ntitle = \"from the future\"\n"), "toml", "newer"),
+        case("session_truncated", &["report", "{f}"], Some(b"format = 1\ngroup = \"C3v\"\n[[set]]\nname = "), "toml", ".toml:4:"),
+        case("session_binary", &["report", "{f}"], Some(b"\xff\xfe\x00binary"), "toml", ".toml"),
+        case("session_bond_triple", &["report", "{f}"], Some(b"format = 1\n[geometry]\natoms = [{ element = \"H\", xyz = [0, 0, 0] }]\nadd_bonds = [[1, 2, 3]]\n"), "toml", ".toml:4:"),
+        case("session_bond_atom_zero", &["report", "{f}"], Some(b"format = 1\n[geometry]\natoms = [{ element = \"H\", xyz = [0, 0, 0] }]\nremove_bonds = [[0, 1]]\n"), "toml", "count from 1"),
+        case("session_bond_missing_atom", &["report", "{f}"], Some(b"format = 1\ngroup = \"Cinfv\"\n[geometry]\natoms = [{ element = \"H\", xyz = [0, 0, 0] }, { element = \"F\", xyz = [0, 0, 0.92] }]\nadd_bonds = [[1, 7]]\n"), "toml", "atom 7 does not exist"),
+        case("session_unknown_element", &["report", "{f}"], Some(b"format = 1\n[geometry]\natoms = [{ element = \"Qq\", xyz = [0, 0, 0] }]\n"), "toml", "Qq"),
+        case("analyze_bond_syntax", &["analyze", "--add-bond", "1to2", "{f}"], Some(W), "xyz", "1to2"),
+        case("analyze_bond_out_of_range", &["analyze", "--add-bond", "1-9", "{f}"], Some(W), "xyz", "atom 9"),
+        case("analyze_bond_breaks_symmetry", &["analyze", "--remove-bond", "1-2", "{f}"], Some(W), "xyz", "not symmetric"),
+        case("build_unknown_site", &["build", "Td", "--sites", "C@origin H@axis7:1.1"], None, "", "item 2"),
+        case("build_linear_group", &["build", "Dinfh", "--sites", "C@origin"], None, "", "linear"),
+        case("build_negative_distance", &["build", "Oh", "--sites", "Cl@axis1:-2"], None, "", "item 1"),
+    ]
+}
+
 #[test]
 fn hostile_inputs_fail_cleanly() {
     let dir = scratch();
     let cases: Vec<Case> = xyz_cases()
         .into_iter()
         .chain(table_and_number_cases())
+        .chain(session_and_molecule_cases())
         .collect();
     assert!(cases.len() >= 40, "{} cases", cases.len());
     for c in &cases {

@@ -106,7 +106,12 @@ pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Resul
                 ));
                 sv.group.clone()
             }
-            _ => return Err(Error::NoGroup),
+            Some(Err(e)) => {
+                return Err(Error::Group(format!(
+                    "no point group chosen, and the geometry that would give one could not be used: {e}"
+                )))
+            }
+            None => return Err(Error::NoGroup),
         },
     };
     let sets: Vec<SetAnalysis> = session

@@ -33,7 +33,13 @@ pub fn report(a: &ReportArgs, ascii: bool) -> CliResult {
         None => print!("{text}"),
     }
     match an {
-        Ok(_) => Ok(()),
+        // The report is written either way; a geometry that could not be used is also an
+        // error of the run, so that batch scripts notice.
+        Ok(an) => match an.geometry.as_ref().map(|g| &g.survey) {
+            Some(Err(e)) => Err(CliError::input(format!("{}: {e}", a.session.display()))
+                .with_hint("the report was written without the molecule")),
+            _ => Ok(()),
+        },
         Err(e) => Err(CliError::input(format!("{}: {e}", a.session.display()))),
     }
 }
