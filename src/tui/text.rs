@@ -128,3 +128,60 @@ pub fn ascii_fold(s: &str) -> String {
     }
     o
 }
+
+/// Markdown pipe tables as aligned plain columns (header, then rows; the `|---|` rule becomes a
+/// line of dashes), everything else unchanged: the reports' tables, readable in a panel.
+pub fn align_md_tables(md: &str) -> String {
+    let mut out = String::new();
+    let lines: Vec<&str> = md.lines().collect();
+    let mut k = 0;
+    while k < lines.len() {
+        if !lines[k].trim_start().starts_with('|') {
+            out.push_str(lines[k]);
+            out.push('\n');
+            k += 1;
+            continue;
+        }
+        let start = k;
+        while k < lines.len() && lines[k].trim_start().starts_with('|') {
+            k += 1;
+        }
+        let rows: Vec<Option<Vec<String>>> = lines[start..k]
+            .iter()
+            .map(|l| {
+                let t = l.trim().trim_start_matches('|').trim_end_matches('|');
+                if t.chars().all(|c| matches!(c, '-' | '|' | ':' | ' ')) {
+                    None
+                } else {
+                    Some(t.split('|').map(|c| c.trim().to_string()).collect())
+                }
+            })
+            .collect();
+        let ncol = rows.iter().flatten().map(|r| r.len()).max().unwrap_or(0);
+        let mut widths = vec![0usize; ncol];
+        for r in rows.iter().flatten() {
+            for (i, c) in r.iter().enumerate() {
+                widths[i] = widths[i].max(width(c));
+            }
+        }
+        let total: usize = widths.iter().sum::<usize>() + 2 * ncol.saturating_sub(1);
+        for r in &rows {
+            match r {
+                None => out.push_str(&"-".repeat(total)),
+                Some(cells) => {
+                    let mut line = String::new();
+                    for (i, c) in cells.iter().enumerate() {
+                        if i + 1 < cells.len() {
+                            line.push_str(&pad(c, widths[i] + 2));
+                        } else {
+                            line.push_str(c);
+                        }
+                    }
+                    out.push_str(line.trim_end());
+                }
+            }
+            out.push('\n');
+        }
+    }
+    out
+}

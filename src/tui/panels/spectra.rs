@@ -26,10 +26,7 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     if let Ok(a) = &app.analysis {
         let width = inner.width as usize;
         let text_lines = |lines: &mut Vec<Line<'static>>, md: &str| {
-            for l in md.lines() {
-                if l.starts_with("|---") {
-                    continue;
-                }
+            for l in super::super::text::align_md_tables(md).lines() {
                 for piece in super::wrap_folded(th, l, width) {
                     lines.push(styled(&piece, ratatui::style::Style::default(), th));
                 }
