@@ -114,14 +114,16 @@ impl Parser<'_> {
         loop {
             match self.peek() {
                 Some('+') => {
+                    let col = self.pos;
                     self.pos += 1;
                     let t = self.term()?;
-                    acc = add(acc, t, false);
+                    acc = add(acc, t, false).map_err(|m| self.err_at(col, &m))?;
                 }
                 Some('-') | Some('−') => {
+                    let col = self.pos;
                     self.pos += 1;
                     let t = self.term()?;
-                    acc = add(acc, t, true);
+                    acc = add(acc, t, true).map_err(|m| self.err_at(col, &m))?;
                 }
                 _ => return Ok(acc),
             }
@@ -328,9 +330,20 @@ impl Parser<'_> {
                 if !v.c.is_real() {
                     return Err(self.err_at(col, "sqrt of a complex number is not supported"));
                 }
-                sqrt(&v.c)
-                    .map(Val::num)
-                    .map_err(|e| self.err_at(col, &e.to_string()))
+                if let Some(q) = v.c.to_rational() {
+                    if let Some(n) = super::sqrt::sqrt_conductor(&q) {
+                        if n > MAX_INPUT_FIELD as u64 {
+                            return Err(self.err_at(col, &field_error(n)));
+                        }
+                    }
+                }
+                let r = sqrt(&v.c)
+                    .map_err(|e| self.err_at(col, &e.to_string()))?
+                    .minimal_field();
+                if r.field_order() > MAX_INPUT_FIELD {
+                    return Err(self.err_at(col, &field_error(r.field_order() as u64)));
+                }
+                Ok(Val::num(r))
             }
             "cos" | "sin" => {
                 if !v.c.is_zero() || !v.pii.is_zero() {
@@ -340,8 +353,15 @@ impl Parser<'_> {
                     ));
                 }
                 let turn = &v.pi / BigRational::from_integer(BigInt::from(2));
-                let (p, q) = small_fraction(&turn)
-                    .ok_or_else(|| self.err_at(col, "angle too complicated"))?;
+                let (p, q) = small_fraction(&turn).ok_or_else(|| {
+                    self.err_at(
+                        col,
+                        &format!(
+                            "angle too complicated: a rational multiple of pi with a \
+                                 denominator up to {MAX_INPUT_FIELD}, like 2pi/7"
+                        ),
+                    )
+                })?;
                 Ok(Val::num(if f == "cos" {
                     Cyclo::cos_turn(p, q)
                 } else {
@@ -356,8 +376,15 @@ impl Parser<'_> {
                     ));
                 }
                 let turn = &v.pii / BigRational::from_integer(BigInt::from(2));
-                let (p, q) = small_fraction(&turn)
-                    .ok_or_else(|| self.err_at(col, "angle too complicated"))?;
+                let (p, q) = small_fraction(&turn).ok_or_else(|| {
+                    self.err_at(
+                        col,
+                        &format!(
+                            "angle too complicated: a rational multiple of pi with a \
+                                 denominator up to {MAX_INPUT_FIELD}, like 2pi/7"
+                        ),
+                    )
+                })?;
                 Ok(Val::num(Cyclo::root_of_unity(p, q)))
             }
             _ => unreachable!("unknown function"),
@@ -365,11 +392,33 @@ impl Parser<'_> {
     }
 }
 
+/// Largest cyclotomic field (n of Q(ζₙ)) a typed number may need. Characters of the tables
+/// need n ≤ 60; the cap keeps hostile input (`exp(2πi/997)·exp(2πi/991)`, `sqrt(1999)`)
+/// from asking for fields whose arithmetic and printing take minutes and gigabytes.
+pub const MAX_INPUT_FIELD: u32 = 180;
+
+fn field_error(n: u64) -> String {
+    format!(
+        "this needs the {n}th roots of unity; salcdesk reads numbers that need at most the \
+         {MAX_INPUT_FIELD}th"
+    )
+}
+
+/// Refuse a sum or product whose field would exceed [`MAX_INPUT_FIELD`] before computing it.
+fn check_fields(a: &Cyclo, b: &Cyclo) -> Result<(), String> {
+    let (x, y) = (a.field_order() as u64, b.field_order() as u64);
+    let l = x / num_integer::gcd(x, y) * y;
+    if l > MAX_INPUT_FIELD as u64 {
+        return Err(field_error(l));
+    }
+    Ok(())
+}
+
 /// A fraction whose denominator is small enough for a cyclotomic field we handle.
 fn small_fraction(q: &BigRational) -> Option<(i64, i64)> {
     let p: i64 = q.numer().try_into().ok()?;
     let d: i64 = q.denom().try_into().ok()?;
-    if d > 1000 {
+    if d > MAX_INPUT_FIELD as i64 {
         return None;
     }
     Some((p.rem_euclid(d), d))
@@ -383,13 +432,14 @@ fn neg(v: Val) -> Val {
     }
 }
 
-fn add(a: Val, b: Val, subtract: bool) -> Val {
+fn add(a: Val, b: Val, subtract: bool) -> Result<Val, String> {
+    check_fields(&a.c, &b.c)?;
     let b = if subtract { neg(b) } else { b };
-    Val {
+    Ok(Val {
         c: a.c + b.c,
         pi: a.pi + b.pi,
         pii: a.pii + b.pii,
-    }
+    })
 }
 
 /// If c = q or c = q·i for rational q, return (q, is_imaginary).
@@ -403,6 +453,7 @@ fn rational_or_imaginary(c: &Cyclo) -> Option<(BigRational, bool)> {
 
 fn mul(a: Val, b: Val) -> Result<Val, String> {
     if a.is_plain() && b.is_plain() {
+        check_fields(&a.c, &b.c)?;
         return Ok(Val::num(a.c * b.c));
     }
     let (k, ang) = if a.is_plain() {

@@ -44,6 +44,21 @@ pub fn sqrt_rational(q: &BigRational) -> Result<Cyclo, SqrtError> {
     Ok(root)
 }
 
+/// The n of the smallest Q(ζₙ) holding √q (its conductor), found without building it: for the
+/// square-free part m of q, n = m when m ≡ 1 (mod 4), else 4m; `None` when q is too large to
+/// factor here (the root itself is then refused too).
+pub fn sqrt_conductor(q: &BigRational) -> Option<u64> {
+    if q.is_zero() {
+        return Some(1);
+    }
+    let q = q.abs();
+    let (_, free) = split_square(&(q.numer() * q.denom()))?;
+    let m: u64 = free.iter().map(|&p| p as u64).product();
+    // A negative q adds i: Q(ζ₄) joins the field.
+    let base = if m % 4 == 1 { m } else { 4 * m };
+    Some(if base == 1 { 1 } else { base })
+}
+
 /// n = s²·(p₁·p₂·…), distinct primes pᵢ; `None` if a factor is too large to handle.
 fn split_square(n: &BigInt) -> Option<(BigInt, Vec<u32>)> {
     let mut n = n.clone();

@@ -158,3 +158,32 @@ fn decimals() {
     assert_eq!(p("(sqrt(5)-1)/2").decimal(), "0.618034");
     assert_eq!(p("exp(2pi i/3)").decimal(), "-0.5+0.866025i");
 }
+
+#[test]
+fn typed_numbers_stay_in_fields_we_can_print() {
+    // Found by fuzzing: √623 needs Q(ζ₂₄₉₂) and printing it took minutes; products of far
+    // roots of unity asked for gigabytes. Both are refused with the field they would need.
+    for (s, n) in [
+        ("sqrt(623)", "2492"),
+        ("sqrt(1999)", "7996"),
+        ("exp(2pi i/7)*exp(2pi i/31)", "217"),
+        ("2cos(2pi/13) + 2cos(2pi/17)", "221"),
+    ] {
+        let e = crate::exact::parse(s).unwrap_err().to_string();
+        assert!(e.contains(&format!("{n}th roots")), "{s}: {e}");
+    }
+    assert!(crate::exact::parse("2cos(2pi/997)").is_err());
+    // What the tables and SALC norms need still reads: √5, √77 (in Q(ζ₇₇)), ζ₁₂₀·√3.
+    for s in [
+        "sqrt(5)",
+        "sqrt(77)",
+        "exp(2pi i/120)*sqrt(3)",
+        "2cos(2pi/179)",
+    ] {
+        let x = p(s);
+        assert_eq!(
+            crate::exact::parse(&x.text(crate::exact::Notation::Ascii)).unwrap(),
+            x
+        );
+    }
+}
