@@ -206,10 +206,12 @@ impl Parser<'_> {
             if !base.is_plain() {
                 return Err(self.err_at(col, "cannot raise an angle to a power"));
             }
+            check_size(&base.c).map_err(|m| self.err_at(col, &m))?;
             let v = base
                 .c
                 .pow(e)
                 .ok_or_else(|| self.err_at(col, "zero to a negative power"))?;
+            check_size(&v).map_err(|m| self.err_at(col, &m))?;
             return Ok(Val::num(v));
         }
         Ok(base)
@@ -311,8 +313,8 @@ impl Parser<'_> {
             scale = frac.len() as u32;
             digits.push_str(&frac);
         }
-        if digits.len() > 400 {
-            return Err(self.err_at(start, "number too long"));
+        if digits.len() > 1000 {
+            return Err(self.err_at(start, "number too long (more than 1000 digits)"));
         }
         let n: BigInt = digits
             .parse()
@@ -404,6 +406,20 @@ fn field_error(n: u64) -> String {
     )
 }
 
+/// Largest size of a computed value's rational parts, in bits (about 400 decimal digits). Typed
+/// numbers may have up to 1000 digits, so that whatever is accepted prints in a form that
+/// reads back (the printer may combine parts).
+const MAX_VALUE_BITS: u64 = 1330;
+
+fn check_size(c: &Cyclo) -> Result<(), String> {
+    for q in c.coefficients() {
+        if q.numer().bits() > MAX_VALUE_BITS || q.denom().bits() > MAX_VALUE_BITS {
+            return Err("number too large (more than about 400 digits)".into());
+        }
+    }
+    Ok(())
+}
+
 /// Refuse a sum or product whose field would exceed [`MAX_INPUT_FIELD`] before computing it.
 fn check_fields(a: &Cyclo, b: &Cyclo) -> Result<(), String> {
     let (x, y) = (a.field_order() as u64, b.field_order() as u64);
@@ -435,8 +451,10 @@ fn neg(v: Val) -> Val {
 fn add(a: Val, b: Val, subtract: bool) -> Result<Val, String> {
     check_fields(&a.c, &b.c)?;
     let b = if subtract { neg(b) } else { b };
+    let c = a.c + b.c;
+    check_size(&c)?;
     Ok(Val {
-        c: a.c + b.c,
+        c,
         pi: a.pi + b.pi,
         pii: a.pii + b.pii,
     })
@@ -454,7 +472,9 @@ fn rational_or_imaginary(c: &Cyclo) -> Option<(BigRational, bool)> {
 fn mul(a: Val, b: Val) -> Result<Val, String> {
     if a.is_plain() && b.is_plain() {
         check_fields(&a.c, &b.c)?;
-        return Ok(Val::num(a.c * b.c));
+        let v = a.c * b.c;
+        check_size(&v)?;
+        return Ok(Val::num(v));
     }
     let (k, ang) = if a.is_plain() {
         (a, b)
