@@ -323,6 +323,19 @@ impl Parser<'_> {
         Ok(Val::num(Cyclo::from_rational(q)))
     }
 
+    /// A turn p/q with q small enough for the fields we read, or a located error.
+    fn turn_of(&self, turn: &BigRational, col: usize) -> Result<(i64, i64), ParseError> {
+        small_fraction(turn).ok_or_else(|| {
+            self.err_at(
+                col,
+                &format!(
+                    "angle too complicated: a rational multiple of pi with a denominator up \
+                     to {MAX_INPUT_FIELD}, like 2pi/7"
+                ),
+            )
+        })
+    }
+
     fn apply(&self, f: &str, v: Val, col: usize) -> Result<Val, ParseError> {
         match f {
             "sqrt" => {
@@ -355,15 +368,7 @@ impl Parser<'_> {
                     ));
                 }
                 let turn = &v.pi / BigRational::from_integer(BigInt::from(2));
-                let (p, q) = small_fraction(&turn).ok_or_else(|| {
-                    self.err_at(
-                        col,
-                        &format!(
-                            "angle too complicated: a rational multiple of pi with a \
-                                 denominator up to {MAX_INPUT_FIELD}, like 2pi/7"
-                        ),
-                    )
-                })?;
+                let (p, q) = self.turn_of(&turn, col)?;
                 Ok(Val::num(if f == "cos" {
                     Cyclo::cos_turn(p, q)
                 } else {
@@ -378,15 +383,7 @@ impl Parser<'_> {
                     ));
                 }
                 let turn = &v.pii / BigRational::from_integer(BigInt::from(2));
-                let (p, q) = small_fraction(&turn).ok_or_else(|| {
-                    self.err_at(
-                        col,
-                        &format!(
-                            "angle too complicated: a rational multiple of pi with a \
-                                 denominator up to {MAX_INPUT_FIELD}, like 2pi/7"
-                        ),
-                    )
-                })?;
+                let (p, q) = self.turn_of(&turn, col)?;
                 Ok(Val::num(Cyclo::root_of_unity(p, q)))
             }
             _ => unreachable!("unknown function"),
