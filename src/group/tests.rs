@@ -2,8 +2,8 @@ use super::*;
 
 #[test]
 fn c3v_from_text_validates() {
-    let text = std::fs::read_to_string("/work/notes/mytables/C3v.toml").unwrap();
-    let g = PointGroup::from_toml("C3v.toml", &text).unwrap();
+    let text = include_str!("../../tables/C3v.toml");
+    let g = PointGroup::from_toml("C3v.toml", text).unwrap();
     assert_eq!(g.order(), 6);
     let p = validate::validate(&g);
     assert!(p.is_empty(), "{p:#?}");
