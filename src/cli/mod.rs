@@ -162,11 +162,14 @@ pub fn preprocess_args(args: Vec<String>) -> Vec<String> {
         .collect()
 }
 
-/// Print a CliError the friendly way and return its exit code.
+/// Print a CliError the friendly way and return its exit code. A stderr that is gone is not
+/// a reason to panic (`eprintln!` would).
 pub fn report_error(e: &CliError) -> i32 {
-    eprintln!("salcdesk: {}", e.message);
+    use std::io::Write;
+    let mut err = std::io::stderr().lock();
+    let _ = writeln!(err, "salcdesk: {}", e.message);
     if let Some(h) = &e.hint {
-        eprintln!("  hint: {h}");
+        let _ = writeln!(err, "  hint: {h}");
     }
     e.code
 }

@@ -82,6 +82,8 @@ pub use model::{
     Atom, Band, Geometry, GeometrySource, Member, MemberSet, Polarization, Session, SetKind,
     Technique, FORMAT,
 };
-pub use recovery::{demo_recovery_path, recovery_path, Recovery};
+pub use recovery::{
+    demo_recovery_path, fallback_recovery_path, recovery_path, state_dir, Recovery,
+};
 pub use save::{check_save_target, save, write_atomic, SaveError, SaveTarget};
 pub use write::to_toml;

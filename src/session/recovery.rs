@@ -1,10 +1,14 @@
 //! Recovery files: unsaved edits written aside every few seconds (and when the program is
-//! stopped by a signal or a crash), offered back the next time the session is opened.
+//! stopped by a signal, loses its terminal or crashes), offered back the next time the session
+//! is opened.
 //!
-//! For `/data/ptcl4.toml` the recovery file is `/data/.ptcl4.toml.recovery`; the demo session,
-//! which has no folder of its own, keeps it in the cache folder (`$SALCDESK_CACHE_DIR`, else
-//! `$XDG_CACHE_HOME/salcdesk`, else `~/.cache/salcdesk`). A folder that cannot be written
-//! falls back to the cache folder too.
+//! For `/data/ptcl4.toml` the recovery file is `/data/.ptcl4.toml.recovery`. Sessions without
+//! a folder of their own (the built-in demo) keep it in the state folder, and a session whose
+//! folder cannot be written falls back there too (named after the session and a hash of its
+//! full path, so two `x.toml` in different folders do not meet). The state folder is
+//! `$SALCDESK_STATE_DIR` (or the older name `$SALCDESK_CACHE_DIR`), else
+//! `$XDG_STATE_HOME/salcdesk`, else `~/.local/state/salcdesk` — the XDG base-directory
+//! specification's place for state that should survive a restart.
 
 use super::load::parse;
 use super::model::Session;
@@ -12,22 +16,30 @@ use super::save::write_atomic;
 use super::write::to_toml;
 use std::path::{Path, PathBuf};
 
-fn cache_dir() -> PathBuf {
-    if let Some(d) = std::env::var_os("SALCDESK_CACHE_DIR") {
-        return PathBuf::from(d);
+fn non_empty(var: &str) -> Option<PathBuf> {
+    std::env::var_os(var)
+        .filter(|v| !v.is_empty())
+        .map(PathBuf::from)
+}
+
+/// The folder for recovery files that cannot go beside their session (see the module text).
+pub fn state_dir() -> PathBuf {
+    if let Some(d) = non_empty("SALCDESK_STATE_DIR").or_else(|| non_empty("SALCDESK_CACHE_DIR")) {
+        return d;
     }
-    if let Some(d) = std::env::var_os("XDG_CACHE_HOME") {
-        return PathBuf::from(d).join("salcdesk");
+    // The specification ignores a relative XDG_STATE_HOME.
+    if let Some(d) = non_empty("XDG_STATE_HOME").filter(|d| d.is_absolute()) {
+        return d.join("salcdesk");
     }
-    if let Some(h) = std::env::var_os("HOME") {
-        return PathBuf::from(h).join(".cache").join("salcdesk");
+    if let Some(h) = non_empty("HOME") {
+        return h.join(".local").join("state").join("salcdesk");
     }
-    std::env::temp_dir().join("salcdesk")
+    std::env::temp_dir().join("salcdesk-state")
 }
 
 /// Where the demo session's unsaved edits go.
 pub fn demo_recovery_path() -> PathBuf {
-    cache_dir().join("demo.recovery")
+    state_dir().join("demo.recovery")
 }
 
 /// The recovery file beside a session file.
@@ -40,6 +52,24 @@ pub fn recovery_path(session: &Path) -> PathBuf {
     dir.join(format!(".{name}.recovery"))
 }
 
+/// FNV-1a (64 bit): a small hash that stays the same from run to run and build to build.
+fn fnv1a(bytes: &[u8]) -> u64 {
+    bytes.iter().fold(0xcbf2_9ce4_8422_2325, |h, &b| {
+        (h ^ b as u64).wrapping_mul(0x0000_0100_0000_01b3)
+    })
+}
+
+/// The recovery file in the state folder for a session whose own folder cannot be written.
+pub fn fallback_recovery_path(session: &Path) -> PathBuf {
+    let full = std::path::absolute(session).unwrap_or_else(|_| session.to_path_buf());
+    let name = session
+        .file_name()
+        .map(|n| n.to_string_lossy().to_string())
+        .unwrap_or_else(|| "session".into());
+    let hash = fnv1a(full.as_os_str().as_encoded_bytes());
+    state_dir().join(format!("{name}-{hash:016x}.recovery"))
+}
+
 /// One recovery slot: where it lives, and what is in it.
 #[derive(Debug, Clone)]
 pub struct Recovery {
@@ -47,14 +77,22 @@ pub struct Recovery {
 }
 
 impl Recovery {
-    /// The slot for a session file, or for the demo when `None`.
+    /// The slot for a session file, or for the demo when `None`. A session whose edits went
+    /// to the state folder last time (its folder could not be written) finds them there.
     pub fn for_session(session: Option<&Path>) -> Self {
-        Recovery {
-            path: match session {
-                Some(p) => recovery_path(p),
-                None => demo_recovery_path(),
-            },
-        }
+        let path = match session {
+            Some(p) => {
+                let beside = recovery_path(p);
+                let fallback = fallback_recovery_path(p);
+                if !beside.exists() && fallback.exists() {
+                    fallback
+                } else {
+                    beside
+                }
+            }
+            None => demo_recovery_path(),
+        };
+        Recovery { path }
     }
 
     /// Unsaved edits left by an earlier run, if any differ from `current`.
@@ -64,35 +102,37 @@ impl Recovery {
         (s != *current).then_some(s)
     }
 
-    /// Write the edits aside (atomically). Falls back to the cache folder when the session's
-    /// folder cannot be written; the slot then points there.
+    /// Write the edits aside (atomically), creating folders as needed. Falls back to the state
+    /// folder when the session's folder cannot be written; the slot then points there.
     pub fn write(&mut self, s: &Session) -> Result<(), String> {
         self.write_text(&to_toml(s))
     }
 
     /// Write already-serialized text aside.
     pub fn write_text(&mut self, text: &str) -> Result<(), String> {
-        if let Some(dir) = self.path.parent() {
+        if let Some(dir) = self.path.parent().filter(|d| !d.as_os_str().is_empty()) {
             let _ = std::fs::create_dir_all(dir);
         }
-        match write_atomic(&self.path, text) {
-            Ok(()) => Ok(()),
-            Err(first) => {
-                let name = self
-                    .path
-                    .file_name()
-                    .map(|n| n.to_string_lossy().trim_start_matches('.').to_string())
-                    .unwrap_or_else(|| "session.recovery".into());
-                let alt = cache_dir().join(name);
-                if alt == self.path {
-                    return Err(first.to_string());
-                }
-                let _ = std::fs::create_dir_all(cache_dir());
-                write_atomic(&alt, text).map_err(|e| e.to_string())?;
-                self.path = alt;
-                Ok(())
-            }
+        let first = match write_atomic(&self.path, text) {
+            Ok(()) => return Ok(()),
+            Err(e) => e,
+        };
+        let name = self
+            .path
+            .file_name()
+            .map(|n| n.to_string_lossy().trim_start_matches('.').to_string())
+            .unwrap_or_else(|| "session.recovery".into());
+        let session = self.path.with_file_name(name.trim_end_matches(".recovery"));
+        let alt = fallback_recovery_path(&session);
+        if self.path.starts_with(state_dir()) {
+            return Err(first.to_string());
         }
+        if let Err(e) = std::fs::create_dir_all(state_dir()) {
+            return Err(format!("{first}; and {}: {e}", state_dir().display()));
+        }
+        write_atomic(&alt, text).map_err(|e| format!("{first}; and {e}"))?;
+        self.path = alt;
+        Ok(())
     }
 
     /// Forget the edits (after a save, or when the user discards them).

@@ -3,9 +3,11 @@
 //! Split three ways: state and what actions do to it (`app`, `action`, no terminal library),
 //! the one key map that also writes the help and the footer (`keymap`), and drawing as pure
 //! functions of the state (`ui`, one file per panel in `panels`, styles in `theme`). Only this
-//! module imports ratatui and crossterm; `input` and `terminal` are the only files that touch
-//! the terminal itself. Chemistry comes from `analysis::analyze`, run quickly after every edit
-//! and fully on a background thread (`worker`).
+//! module imports ratatui and crossterm; `reader` (input, read with poll(2)/read(2) and decoded
+//! by `input`) and `terminal` (output) are the only files that touch the terminal itself.
+//! Chemistry comes from `analysis::analyze`, run quickly after every edit and fully on a
+//! background thread (`worker`). Signals and a lost terminal end the workspace in order
+//! (`signals`; see `run`).
 
 pub mod action;
 pub mod app;
@@ -13,6 +15,7 @@ mod input;
 pub mod keymap;
 pub mod molecule_edit;
 pub mod panels;
+mod reader;
 pub mod signals;
 mod terminal;
 pub mod text;
@@ -24,7 +27,6 @@ pub use action::{Action, Panel};
 pub use app::App;
 
 use crate::session::{self, Session};
-use crossterm::event;
 use std::path::PathBuf;
 use std::time::{Duration, Instant};
 
@@ -67,31 +69,78 @@ pub fn open_session(path: Option<&std::path::Path>) -> Result<Session, String> {
 /// Autosave interval for the recovery file.
 const AUTOSAVE: Duration = Duration::from_secs(2);
 
+/// Longest wait for input before the loop looks at the worker, the signals and the autosave.
+const TICK: Duration = Duration::from_millis(50);
+
+/// How long the event loop has, after an ending signal, before the watchdog ends the process.
+const GRACE: Duration = Duration::from_millis(700);
+
+/// Why the event loop ended.
+#[derive(Debug)]
+enum Ending {
+    /// The user quit.
+    Quit,
+    /// SIGHUP, SIGTERM or SIGINT arrived.
+    Signal(i32),
+    /// The terminal is gone: end of input, a read or write error, a hang-up. Counts as SIGHUP.
+    Lost(String),
+}
+
 /// Run the workspace until the user quits. Errors are messages for the user.
+///
+/// When a signal or the loss of the terminal ends it, the unsaved edits are written to the
+/// recovery file, the terminal is given back and the process exits here with 128 + the
+/// signal (129 for a hang-up or end of input, 130 for SIGINT, 143 for SIGTERM).
 pub fn run(opts: Options) -> Result<(), String> {
     let s = open_session(opts.path.as_deref())?;
     let (color, ascii) = look(&opts);
     let mut app = App::new(s, opts.path.clone(), ascii, color);
     signals::install();
+    signals::watchdog(GRACE, terminal::emergency_exit);
     // The group list loads every table: do it off the main thread.
     let (cat_tx, cat_rx) = std::sync::mpsc::channel();
     std::thread::spawn(move || {
         let _ = cat_tx.send(crate::analysis::catalogue());
     });
     let worker = worker::Worker::start();
+    let mut input = reader::Reader::open().map_err(|e| format!("cannot use this terminal: {e}"))?;
     let mut term = terminal::enter().map_err(|e| format!("cannot use this terminal: {e}"))?;
-    let result = event_loop(&mut term, &mut app, &worker, &cat_rx);
+    let ending = event_loop(&mut term, &mut input, &mut app, &worker, &cat_rx);
+    let (sig, why) = match ending {
+        Ending::Quit => {
+            terminal::restore();
+            return Ok(());
+        }
+        Ending::Signal(sig) => (sig, format!("stopped by {}", signals::name(sig))),
+        Ending::Lost(why) => (signals::SIGHUP, format!("lost the terminal ({why})")),
+    };
+    // Edits first, then the terminal (if it is still there).
+    let rescued = rescue(&mut app);
     terminal::restore();
-    if let Err(e) = &result {
-        eprintln!("salcdesk: {e}");
+    // Its Drop would write to the terminal and print (panicking) when that fails.
+    std::mem::forget(term);
+    let what = match rescued {
+        None => "nothing was unsaved".to_string(),
+        Some(Ok(p)) => format!("unsaved edits written to {}", p.display()),
+        Some(Err(e)) => format!("the unsaved edits could NOT be written: {e}"),
+    };
+    say(&format!("salcdesk: {why}; {what}"));
+    std::process::exit(signals::exit_status(sig));
+}
+
+/// A line on stderr; a stderr that is gone (the terminal hung up) is not an error.
+fn say(line: &str) {
+    use std::io::Write;
+    let _ = writeln!(std::io::stderr(), "{line}");
+}
+
+/// Write the unsaved edits to the recovery file now: `None` when there are none.
+fn rescue(app: &mut App) -> Option<Result<PathBuf, String>> {
+    if !app.dirty() {
+        return None;
     }
-    if let Some(sig) = signals::caught() {
-        eprintln!(
-            "salcdesk: stopped by signal {sig}; unsaved edits are in {}",
-            app.recovery.path.display()
-        );
-    }
-    result
+    let written = terminal::rescue_with(|| app.recovery.write(&app.session));
+    Some(written.map(|()| app.recovery.path.clone()))
 }
 
 fn rescue_copy(app: &App) -> Option<(PathBuf, String)> {
@@ -110,32 +159,42 @@ fn panic_on_test_key(k: keymap::Key) {
     }
 }
 
+fn draw(term: &mut terminal::Term, app: &mut App) -> std::io::Result<()> {
+    let size = term.size()?;
+    app.screen = (size.width, size.height);
+    term.draw(|f| ui::draw(f, app))?;
+    Ok(())
+}
+
 fn event_loop(
     term: &mut terminal::Term,
+    input: &mut reader::Reader,
     app: &mut App,
     worker: &worker::Worker,
     cat_rx: &std::sync::mpsc::Receiver<Vec<crate::analysis::GroupEntry>>,
-) -> Result<(), String> {
+) -> Ending {
     let mut redraw = true;
     let mut requested = u64::MAX;
     let mut last_autosave = Instant::now();
     let mut rescue_gen = u64::MAX;
     loop {
+        if let Some(sig) = signals::caught() {
+            return Ending::Signal(sig);
+        }
+        if signals::take_resize() {
+            redraw = true;
+        }
         if redraw {
-            let size = term.size().map_err(|e| e.to_string())?;
-            app.screen = (size.width, size.height);
-            term.draw(|f| ui::draw(f, app)).map_err(|e| e.to_string())?;
+            if let Err(e) = draw(term, app) {
+                return Ending::Lost(format!("writing to it: {e}"));
+            }
             redraw = false;
         }
         if app.quit {
             if !app.dirty() {
                 app.recovery.clear();
             }
-            return Ok(());
-        }
-        if signals::caught().is_some() {
-            app.autosave();
-            return Ok(());
+            return Ending::Quit;
         }
         if app.gen != requested {
             requested = app.gen;
@@ -145,38 +204,25 @@ fn event_loop(
             rescue_gen = app.gen;
             terminal::set_rescue(rescue_copy(app));
         }
-        let ready = event::poll(Duration::from_millis(50));
-        match ready {
-            Ok(true) => loop {
-                let ev = match event::read() {
-                    Ok(ev) => ev,
-                    Err(e) => {
-                        // The terminal went away (e.g. the SSH connection dropped).
-                        app.autosave();
-                        return Err(format!("lost the terminal: {e}"));
+        match input.wait(TICK) {
+            reader::Wait::Input(inputs) => {
+                for i in inputs {
+                    match i {
+                        input::Input::Key(k) => {
+                            panic_on_test_key(k);
+                            app.handle_key(k)
+                        }
+                        input::Input::Action(a) => app.apply(a),
+                        input::Input::Nothing => {}
                     }
-                };
-                match input::translate(ev) {
-                    input::Input::Key(k) => {
-                        panic_on_test_key(k);
-                        app.handle_key(k)
+                    redraw = true;
+                    if app.quit {
+                        break;
                     }
-                    input::Input::Action(a) => app.apply(a),
-                    input::Input::Resize => {
-                        let _ = term.autoresize();
-                    }
-                    input::Input::Nothing => {}
                 }
-                redraw = true;
-                if app.quit || !matches!(event::poll(Duration::ZERO), Ok(true)) {
-                    break;
-                }
-            },
-            Ok(false) => {}
-            Err(e) => {
-                app.autosave();
-                return Err(format!("lost the terminal: {e}"));
             }
+            reader::Wait::Idle | reader::Wait::Interrupted => {}
+            reader::Wait::End(why) => return Ending::Lost(why),
         }
         if let Some(done) = worker.poll() {
             app.accept_analysis(done.gen, done.result);
@@ -190,7 +236,7 @@ fn event_loop(
         }
         if last_autosave.elapsed() >= AUTOSAVE {
             last_autosave = Instant::now();
-            app.autosave();
+            terminal::rescue_with(|| app.autosave());
         }
     }
 }

@@ -1,15 +1,26 @@
-//! SIGHUP (the SSH connection dropped) and SIGTERM (the cluster's job killer): note that one
-//! arrived, so the main loop can write the recovery file, restore the terminal and leave.
+//! Signals that end the workspace: SIGHUP (the terminal or the SSH link went away), SIGTERM
+//! (a job killer, `kill`) and SIGINT (`kill -INT`; Ctrl-C itself is a key in raw mode). The
+//! handler only stores the signal number in an atomic, which is all a signal handler may
+//! safely do; the signal also interrupts the event loop's wait, which then writes the recovery
+//! file, gives the terminal back and exits with 128 + the signal number. A watchdog thread
+//! ends the process anyway if the loop has not done so shortly after (a draw blocked on a
+//! stopped terminal, a long computation).
 //!
-//! The handler only stores to an atomic flag, which is all a signal handler may safely do.
-//! `signal` comes from the C library the Rust standard library already links on Unix, so no
-//! extra dependency is needed.
+//! SIGWINCH only marks the screen for a redraw. SIGPIPE is ignored while the workspace runs:
+//! a terminal write that fails is a lost terminal, handled like a hang-up, never a silent death
+//! that would lose the edits.
 
-use std::sync::atomic::{AtomicI32, Ordering};
+use std::sync::atomic::{AtomicBool, AtomicI32, Ordering};
+use std::time::Duration;
+
+pub const SIGHUP: i32 = libc::SIGHUP;
+pub const SIGINT: i32 = libc::SIGINT;
+pub const SIGTERM: i32 = libc::SIGTERM;
 
 static CAUGHT: AtomicI32 = AtomicI32::new(0);
+static RESIZED: AtomicBool = AtomicBool::new(false);
 
-/// The signal that arrived, if any.
+/// The first ending signal that arrived, if any.
 pub fn caught() -> Option<i32> {
     match CAUGHT.load(Ordering::SeqCst) {
         0 => None,
@@ -17,41 +28,66 @@ pub fn caught() -> Option<i32> {
     }
 }
 
-#[cfg(unix)]
-mod imp {
-    use super::CAUGHT;
-    use std::sync::atomic::Ordering;
+/// Whether the terminal was resized since the last call.
+pub fn take_resize() -> bool {
+    RESIZED.swap(false, Ordering::SeqCst)
+}
 
-    const SIGHUP: i32 = 1;
-    const SIGTERM: i32 = 15;
+/// The exit status for an ending signal (the shell's convention: 128 + number).
+pub fn exit_status(sig: i32) -> i32 {
+    128 + sig
+}
 
-    extern "C" {
-        fn signal(signum: i32, handler: usize) -> usize;
-    }
-
-    extern "C" fn on_signal(sig: i32) {
-        CAUGHT.store(sig, Ordering::SeqCst);
-    }
-
-    pub fn install() {
-        let h = on_signal as extern "C" fn(i32) as usize;
-        // SAFETY: `on_signal` is async-signal-safe (one atomic store) and lives for the
-        // whole program; `signal` is the C library's, with the C ABI declared above.
-        unsafe {
-            signal(SIGHUP, h);
-            signal(SIGTERM, h);
-        }
+/// A name for messages.
+pub fn name(sig: i32) -> &'static str {
+    match sig {
+        SIGHUP => "SIGHUP (hang-up)",
+        SIGINT => "SIGINT (interrupt)",
+        SIGTERM => "SIGTERM (terminate)",
+        _ => "a signal",
     }
 }
 
-#[cfg(not(unix))]
-mod imp {
-    pub fn install() {}
+extern "C" fn on_signal(sig: i32) {
+    if sig == libc::SIGWINCH {
+        RESIZED.store(true, Ordering::SeqCst);
+    } else {
+        // Keep the first: a SIGTERM after a SIGHUP does not change the reason.
+        let _ = CAUGHT.compare_exchange(0, sig, Ordering::SeqCst, Ordering::SeqCst);
+    }
 }
 
-/// Start noting SIGHUP and SIGTERM.
+fn set(sig: i32, handler: libc::sighandler_t) {
+    // SAFETY: a zeroed sigaction with an empty mask is valid; `on_signal` is
+    // async-signal-safe (atomic stores only) and lives for the whole program.
+    unsafe {
+        let mut sa: libc::sigaction = std::mem::zeroed();
+        sa.sa_sigaction = handler;
+        sa.sa_flags = libc::SA_RESTART;
+        libc::sigemptyset(&mut sa.sa_mask);
+        libc::sigaction(sig, &sa, std::ptr::null_mut());
+    }
+}
+
+/// Start noting SIGHUP, SIGTERM, SIGINT and SIGWINCH; ignore SIGPIPE.
 pub fn install() {
-    imp::install();
+    let h = on_signal as extern "C" fn(i32) as libc::sighandler_t;
+    for sig in [SIGHUP, SIGTERM, SIGINT, libc::SIGWINCH] {
+        set(sig, h);
+    }
+    set(libc::SIGPIPE, libc::SIG_IGN);
+}
+
+/// After an ending signal, give the event loop `grace` to end in order; if the process is
+/// still there, call `emergency` (which must not return).
+pub fn watchdog(grace: Duration, emergency: fn(i32)) {
+    std::thread::spawn(move || loop {
+        std::thread::sleep(Duration::from_millis(100));
+        if let Some(sig) = caught() {
+            std::thread::sleep(grace);
+            emergency(sig);
+        }
+    });
 }
 
 /// For tests: pretend a signal arrived.
