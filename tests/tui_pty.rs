@@ -1,112 +1,37 @@
 //! End to end: the real binary in a pseudo-terminal. Open a session, tick a cell, see the
 //! reduction change, save, quit, open it again and find the edit; the terminal is given back
-//! (alternate screen left) when the program ends.
+//! (alternate screen left) when the program ends. (The pty harness is in tests/common/pty.rs;
+//! losing the terminal and signals are in tests/tui_hangup.rs.)
 
 #![cfg(unix)]
 
-use portable_pty::{native_pty_system, CommandBuilder, PtySize};
-use std::io::{Read, Write};
-use std::path::{Path, PathBuf};
-use std::sync::{Arc, Mutex};
-use std::time::{Duration, Instant};
+mod common;
 
-struct Run {
-    screen: Arc<Mutex<vt100::Parser>>,
-    raw: Arc<Mutex<Vec<u8>>>,
-    writer: Box<dyn Write + Send>,
-    child: Box<dyn portable_pty::Child + Send + Sync>,
-}
+use common::pty::Pty;
+use common::{copy_session, TempDir};
+use std::path::Path;
+use std::time::Duration;
 
-impl Run {
-    fn start(session: &Path, cache: &Path) -> Run {
-        let pty = native_pty_system()
-            .openpty(PtySize {
-                rows: 24,
-                cols: 80,
-                pixel_width: 0,
-                pixel_height: 0,
-            })
-            .expect("a pseudo-terminal");
-        let mut cmd = CommandBuilder::new(env!("CARGO_BIN_EXE_salcdesk"));
-        cmd.arg("open");
-        cmd.arg(session);
-        cmd.env("TERM", "xterm-256color");
-        cmd.env("SALCDESK_CACHE_DIR", cache);
-        cmd.env_remove("NO_COLOR");
-        let child = pty.slave.spawn_command(cmd).expect("spawn salcdesk");
-        drop(pty.slave);
-        let mut reader = pty.master.try_clone_reader().unwrap();
-        let writer = pty.master.take_writer().unwrap();
-        let screen = Arc::new(Mutex::new(vt100::Parser::new(24, 80, 0)));
-        let raw = Arc::new(Mutex::new(Vec::new()));
-        let (s2, r2) = (screen.clone(), raw.clone());
-        std::thread::spawn(move || {
-            let _keep = pty.master;
-            let mut buf = [0u8; 4096];
-            while let Ok(n) = reader.read(&mut buf) {
-                if n == 0 {
-                    break;
-                }
-                s2.lock().unwrap().process(&buf[..n]);
-                r2.lock().unwrap().extend_from_slice(&buf[..n]);
-            }
-        });
-        Run {
-            screen,
-            raw,
-            writer,
-            child,
-        }
-    }
-    fn text(&self) -> String {
-        self.screen.lock().unwrap().screen().contents()
-    }
-    fn wait_for(&self, what: &str) {
-        let t0 = Instant::now();
-        while t0.elapsed() < Duration::from_secs(20) {
-            if self.text().contains(what) {
-                return;
-            }
-            std::thread::sleep(Duration::from_millis(50));
-        }
-        panic!("'{what}' never appeared; the screen:\n{}", self.text());
-    }
-    fn keys(&mut self, s: &str) {
-        self.writer.write_all(s.as_bytes()).unwrap();
-        self.writer.flush().unwrap();
-        std::thread::sleep(Duration::from_millis(150));
-    }
-    fn wait_exit(&mut self) {
-        let t0 = Instant::now();
-        while t0.elapsed() < Duration::from_secs(10) {
-            if let Ok(Some(st)) = self.child.try_wait() {
-                assert!(st.success(), "exit status {st:?}");
-                return;
-            }
-            std::thread::sleep(Duration::from_millis(50));
-        }
-        let _ = self.child.kill();
-        panic!("salcdesk did not quit; the screen:\n{}", self.text());
-    }
-}
-
-fn setup(name: &str) -> (PathBuf, PathBuf) {
-    let dir = std::env::temp_dir().join(format!("salcdesk-pty-{name}-{}", std::process::id()));
-    let _ = std::fs::remove_dir_all(&dir);
-    std::fs::create_dir_all(&dir).unwrap();
-    let p = dir.join("puzzle.toml");
-    std::fs::copy(
-        Path::new(env!("CARGO_MANIFEST_DIR")).join("sessions/degenerate-puzzle.toml"),
-        &p,
+fn start(dir: &TempDir, session: &Path) -> Pty {
+    Pty::spawn(
+        dir.path(),
+        &["open".as_ref(), session.as_os_str()],
+        &[("SALCDESK_STATE_DIR", dir.join("state").as_os_str())],
     )
-    .unwrap();
-    (p, dir.join("cache"))
+}
+
+/// Wait for the exit; the exit status.
+fn exit_code(run: &mut Pty) -> Option<u32> {
+    let e = run.wait_exit(Duration::from_secs(10));
+    e.unwrap_or_else(|| panic!("salcdesk did not quit; the screen:\n{}", run.text()))
+        .code
 }
 
 #[test]
 fn tick_save_quit_reopen_in_a_real_terminal() {
-    let (p, cache) = setup("save");
-    let mut run = Run::start(&p, &cache);
+    let dir = TempDir::new("pty-save");
+    let p = copy_session("degenerate-puzzle.toml", dir.path(), "puzzle.toml");
+    let mut run = start(&dir, &p);
     run.wait_for("not a representation of C3v");
     // r1, column 3σv: two steps right, then Space.
     run.keys("ll");
@@ -117,8 +42,8 @@ fn tick_save_quit_reopen_in_a_real_terminal() {
     run.keys("s");
     run.wait_for("saved");
     run.keys("q");
-    run.wait_exit();
-    let raw = run.raw.lock().unwrap().clone();
+    assert_eq!(exit_code(&mut run), Some(0));
+    let raw = run.all_output();
     let tail = String::from_utf8_lossy(&raw[raw.len().saturating_sub(200)..]).to_string();
     assert!(
         tail.contains("\x1b[?1049l"),
@@ -128,26 +53,25 @@ fn tick_save_quit_reopen_in_a_real_terminal() {
     let saved = salcdesk::session::load_file(&p).unwrap();
     assert_eq!(saved.sets[0].members[0].unmoved_by, vec!["E", "3sv"]);
 
-    let mut again = Run::start(&p, &cache);
+    let mut again = start(&dir, &p);
     again.wait_for("Γ = A₁ + E");
     assert!(!again.text().contains("[modified]"));
     again.keys("q");
-    again.wait_exit();
+    assert_eq!(exit_code(&mut again), Some(0));
 }
 
 #[test]
 fn a_hangup_keeps_the_edits_and_the_next_start_offers_them() {
-    let (p, cache) = setup("hangup");
-    let p2 = p.with_file_name("hangup.toml");
-    std::fs::copy(&p, &p2).unwrap();
-    let mut run = Run::start(&p2, &cache);
+    let dir = TempDir::new("pty-hangup");
+    let p2 = copy_session("degenerate-puzzle.toml", dir.path(), "hangup.toml");
+    let mut run = start(&dir, &p2);
     run.wait_for("not a representation of C3v");
     run.keys("ll ");
     run.wait_for("Γ = A₁ + E");
-    // The SSH connection drops: SIGHUP (portable-pty's killer sends exactly that).
-    run.child.clone_killer().kill().unwrap();
-    run.wait_exit();
-    let raw = run.raw.lock().unwrap().clone();
+    // The SSH connection drops: SIGHUP; the status says so (128 + 1).
+    run.signal(libc::SIGHUP);
+    assert_eq!(exit_code(&mut run), Some(129));
+    let raw = run.all_output();
     let tail = String::from_utf8_lossy(&raw[raw.len().saturating_sub(300)..]).to_string();
     assert!(tail.contains("\x1b[?1049l"), "terminal restored: {tail:?}");
     // The session file is untouched; the edit waits in the recovery file beside it.
@@ -156,13 +80,13 @@ fn a_hangup_keeps_the_edits_and_the_next_start_offers_them() {
     let rec = p2.with_file_name(".hangup.toml.recovery");
     assert!(rec.exists(), "recovery file written");
 
-    let mut again = Run::start(&p2, &cache);
+    let mut again = start(&dir, &p2);
     again.wait_for("Unsaved edits found");
     again.keys("r");
     again.wait_for("Γ = A₁ + E");
     again.keys("s");
     again.wait_for("saved");
     again.keys("q");
-    again.wait_exit();
+    assert_eq!(exit_code(&mut again), Some(0));
     assert!(!rec.exists(), "a save clears the recovery file");
 }

@@ -36,6 +36,8 @@ pub struct Pty {
     fd: RawFd,
     child: Box<dyn Child + Send + Sync>,
     pub pid: i32,
+    /// The local-mode flags (termios c_lflag) of the new pty, read before the program started.
+    pub start_lflags: Option<u64>,
     screen: Arc<Mutex<vt100::Parser>>,
     raw: Arc<Mutex<Vec<u8>>>,
     stop: Arc<AtomicBool>,
@@ -105,6 +107,10 @@ impl Pty {
         cmd.env("TERM", "xterm-256color");
         cmd.env_remove("NO_COLOR");
         configure(&mut cmd);
+        let start_lflags = pty
+            .master
+            .get_termios()
+            .map(|t| t.local_flags.bits() as u64);
         let child = pty.slave.spawn_command(cmd).expect("spawn salcdesk");
         drop(pty.slave);
         let pid = child.process_id().expect("a process id") as i32;
@@ -144,6 +150,7 @@ impl Pty {
             fd,
             child,
             pid,
+            start_lflags,
             screen,
             raw,
             stop,
