@@ -252,6 +252,31 @@ fn sigterm_while_idle_and_nothing_unsaved_ends_within_a_second() {
     );
 }
 
+/// A recovery file that cannot be written is said on stderr (here the terminal) on the way out.
+#[test]
+fn a_rescue_that_cannot_be_written_is_said_and_does_not_panic() {
+    let dir = TempDir::new("hangup-unwritable");
+    let blocker = dir.join("not-a-folder");
+    std::fs::write(&blocker, "a file").unwrap();
+    let mut run = Pty::spawn_with(dir.path(), &[], |cmd| {
+        cmd.env("XDG_STATE_HOME", blocker.join("state"));
+        cmd.env("HOME", blocker.join("home"));
+        cmd.env_remove("SALCDESK_STATE_DIR");
+        cmd.env_remove("SALCDESK_CACHE_DIR");
+    });
+    run.wait_for_without("Γ = A₁g + Eg + T₁u", NOT_REP);
+    run.keys("l ");
+    run.wait_for("n(A₁g) = 7/6");
+    run.signal(libc::SIGTERM);
+    let exit = run
+        .wait_exit(Duration::from_secs(1))
+        .expect("gone within 1 s");
+    assert_eq!(exit.code, Some(143));
+    let text = run.text();
+    assert!(text.contains("could NOT be written"), "{text}");
+    assert!(!text.contains("panicked"), "{text}");
+}
+
 /// The next start of the demo says where the rescued edits are and offers them back.
 #[test]
 fn the_next_start_of_the_demo_offers_the_rescued_edits() {
