@@ -252,6 +252,50 @@ fn sigterm_while_idle_and_nothing_unsaved_ends_within_a_second() {
     );
 }
 
+/// A terminal that takes no output (frozen, or a link that stalls): the program blocks in a
+/// write to it and cannot look at its signal flag; SIGTERM still ends it within a second (the
+/// watchdog), with the unsaved edit rescued.
+#[test]
+fn sigterm_ends_a_workspace_blocked_on_a_frozen_terminal() {
+    let mut c = start(Opened::Puzzle);
+    first_edit(&mut c, false);
+    c.run.pause_reading(true);
+    // Panel switches (whole screens redrawn) until the pty's buffer is full and a draw blocks.
+    let t0 = Instant::now();
+    let mut blocked = false;
+    let mut n = 0;
+    while t0.elapsed() < Duration::from_secs(10) && !blocked {
+        n += 1;
+        c.run.keys(if n % 2 == 0 { "2" } else { "3" });
+        std::thread::sleep(Duration::from_millis(20));
+        let wchan = std::fs::read_to_string(format!("/proc/{}/wchan", c.run.pid));
+        let stat = std::fs::read_to_string(format!("/proc/{}/stat", c.run.pid));
+        // Sleeping in the terminal's write (n_tty_write waits in wait_woken).
+        blocked = wchan.is_ok_and(|w| w.contains("wait_woken") || w.contains("tty_write"))
+            && stat.is_ok_and(|s| s.contains(") S "));
+    }
+    eprintln!(
+        "blocked in a terminal write: {blocked}; wchan {:?}, {} bytes read",
+        std::fs::read_to_string(format!("/proc/{}/wchan", c.run.pid)),
+        c.run.raw().len()
+    );
+    let rescued_before = c.rec.exists();
+    let t_end = Instant::now();
+    c.run.signal(libc::SIGTERM);
+    let exit = gone_within(
+        &mut c,
+        Duration::from_secs(1),
+        "SIGTERM on a frozen terminal",
+    );
+    eprintln!(
+        "frozen terminal: gone after {:?} (recovery file there before: {rescued_before})",
+        exit.at.duration_since(t_end)
+    );
+    assert_eq!(exit.code, Some(143));
+    assert_eq!(ticks(&c.rec, 0).unwrap(), ["E", "3sv"], "edit rescued");
+    c.run.pause_reading(false);
+}
+
 /// A recovery file that cannot be written is said on stderr (here the terminal) on the way out.
 #[test]
 fn a_rescue_that_cannot_be_written_is_said_and_does_not_panic() {

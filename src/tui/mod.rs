@@ -73,7 +73,7 @@ const AUTOSAVE: Duration = Duration::from_secs(2);
 const TICK: Duration = Duration::from_millis(50);
 
 /// How long the event loop has, after an ending signal, before the watchdog ends the process.
-const GRACE: Duration = Duration::from_millis(700);
+const GRACE: Duration = Duration::from_millis(500);
 
 /// Why the event loop ended.
 #[derive(Debug)]

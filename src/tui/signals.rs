@@ -82,7 +82,7 @@ pub fn install() {
 /// still there, call `emergency` (which must not return).
 pub fn watchdog(grace: Duration, emergency: fn(i32)) {
     std::thread::spawn(move || loop {
-        std::thread::sleep(Duration::from_millis(100));
+        std::thread::sleep(Duration::from_millis(50));
         if let Some(sig) = caught() {
             std::thread::sleep(grace);
             emergency(sig);

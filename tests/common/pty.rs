@@ -41,6 +41,7 @@ pub struct Pty {
     screen: Arc<Mutex<vt100::Parser>>,
     raw: Arc<Mutex<Vec<u8>>>,
     stop: Arc<AtomicBool>,
+    pause: Arc<AtomicBool>,
     done: Arc<AtomicBool>,
     reader: Option<JoinHandle<()>>,
     exit: Option<Exit>,
@@ -119,11 +120,17 @@ impl Pty {
         let raw = Arc::new(Mutex::new(Vec::new()));
         let stop = Arc::new(AtomicBool::new(false));
         let done = Arc::new(AtomicBool::new(false));
+        let pause = Arc::new(AtomicBool::new(false));
         let (s2, r2, st2, d2) = (screen.clone(), raw.clone(), stop.clone(), done.clone());
+        let p2 = pause.clone();
         // The master stays open (owned by `Pty`) until this thread has been joined.
         let reader = std::thread::spawn(move || {
             let mut buf = [0u8; 4096];
             while !st2.load(Ordering::SeqCst) {
+                if p2.load(Ordering::SeqCst) {
+                    std::thread::sleep(Duration::from_millis(20));
+                    continue;
+                }
                 let mut p = libc::pollfd {
                     fd,
                     events: libc::POLLIN,
@@ -154,6 +161,7 @@ impl Pty {
             screen,
             raw,
             stop,
+            pause,
             done,
             reader: Some(reader),
             exit: None,
@@ -215,6 +223,12 @@ impl Pty {
         if let Some(h) = self.reader.take() {
             let _ = h.join();
         }
+    }
+
+    /// Stop reading the terminal's output (a frozen terminal: the program's writes block once
+    /// the pty's buffer is full), or read on again.
+    pub fn pause_reading(&self, paused: bool) {
+        self.pause.store(paused, Ordering::SeqCst);
     }
 
     /// Send a signal to the process.
