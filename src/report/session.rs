@@ -604,3 +604,12 @@ pub fn label(l: &str, ascii: bool) -> String {
         display_label(l)
     }
 }
+
+/// The tables of the LaTeX report alone, for `\input` into a document of one's own (needs
+/// `\usepackage{booktabs}` and `amsmath` there).
+pub fn latex_fragment(s: &Session, a: &Result<Analysis, Error>) -> String {
+    let doc = latex(s, a);
+    doc.split_once("\\begin{document}\n")
+        .map(|(_, b)| b.trim_end_matches("\\end{document}\n").to_string())
+        .unwrap_or(doc)
+}
