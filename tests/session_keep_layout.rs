@@ -75,7 +75,12 @@ fn saving_an_unchanged_session_gives_the_file_back_byte_for_byte() {
         let out = dir.join(f.file_name().unwrap());
         std::fs::write(&out, &text).unwrap();
         session::save(&s, &out).unwrap();
-        assert_eq!(std::fs::read_to_string(&out).unwrap(), text, "{}", f.display());
+        assert_eq!(
+            std::fs::read_to_string(&out).unwrap(),
+            text,
+            "{}",
+            f.display()
+        );
     }
 }
 
@@ -138,7 +143,10 @@ fn notes_lines(text: &str) -> Vec<&str> {
         }
         if inside {
             out.push(l);
-            if l.trim_end().ends_with("\"\"\"") && !l.starts_with("notes = \"\"\"\"") && out.len() > 1 {
+            if l.trim_end().ends_with("\"\"\"")
+                && !l.starts_with("notes = \"\"\"\"")
+                && out.len() > 1
+            {
                 inside = false;
             }
         }
@@ -169,11 +177,42 @@ fn retitling_changes_exactly_one_line() {
     }
 }
 
+const HAND_WRITTEN: &str = r#"# My PtCl4 work — written by hand
+format   = 1
+group = "D4h"     # square planar
+title = 'Square-planar centre'
+
+notes = """
+First line.
+Second line.
+"""
+
+# the two sets
+[[set]]
+kind = "stretch"   # bonds
+name = "Pt-Cl"
+members = [ "r1", "r2",
+            "r3", "r4" ]   # four bonds
+
+  [set.unmoved]    # indented header
+  r1 = ["E", "C2'", "sh", "sv"]   # on the x axis
+  r2 = ["E", "C2'", "sh", "sv"]
+  r3 = ["E", "sh"]
+  r4 = ["E", "sh"]
+
+[[band]]
+technique = "Raman"      # measured 2026
+position = 330           # integer on purpose
+"#;
+
 #[test]
 fn a_hand_written_file_keeps_its_order_spacing_quotes_and_comments() {
     let mut s = parse("hand", HAND_WRITTEN).unwrap();
     // Unchanged: the very same text.
-    assert_eq!(session::to_toml_keeping(Some(HAND_WRITTEN), &s), HAND_WRITTEN);
+    assert_eq!(
+        session::to_toml_keeping(Some(HAND_WRITTEN), &s),
+        HAND_WRITTEN
+    );
     s.sets[0].members[3].unmoved_by.push("C2'".into());
     s.bands[0].position = 331.0;
     let saved = session::to_toml_keeping(Some(HAND_WRITTEN), &s);
@@ -190,8 +229,14 @@ fn a_hand_written_file_keeps_its_order_spacing_quotes_and_comments() {
         ],
         "{saved}"
     );
-    assert!(saved.contains("  r4 = [\"E\", \"sh\", \"C2'\"]\n"), "{saved}");
-    assert!(saved.contains("position = 331.0           # integer on purpose"), "{saved}");
+    assert!(
+        saved.contains("  r4 = [\"E\", \"sh\", \"C2'\"]\n"),
+        "{saved}"
+    );
+    assert!(
+        saved.contains("position = 331.0           # integer on purpose"),
+        "{saved}"
+    );
 }
 
 #[test]
