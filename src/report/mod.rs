@@ -3,9 +3,11 @@
 //! Owns presentation only; never computes chemistry (that is `rep`, `group`, …).
 
 pub mod grid;
+pub mod latex;
 pub mod molecule;
 pub mod reduction;
 pub mod session;
+pub mod spectra;
 pub mod survey;
 pub mod table;
 

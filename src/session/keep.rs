@@ -185,8 +185,7 @@ fn same(a: &Value, b: &Value) -> bool {
         }
         (Value::InlineTable(x), Value::InlineTable(y)) => {
             x.len() == y.len()
-                && y
-                    .iter()
+                && y.iter()
                     .all(|(k, yv)| x.get(k).is_some_and(|xv| same(xv, yv)))
         }
         _ => match (num(a), num(b)) {
