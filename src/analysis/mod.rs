@@ -165,7 +165,9 @@ fn vibrational_source(
         return Some((
             format!(
                 "the geometry ({}, {})",
-                crate::report::survey::formula(&sv.oriented.molecule),
+                crate::geom::formula::subscripts(&crate::geom::formula::formula(
+                    sv.oriented.molecule.atoms.iter().map(|a| a.symbol())
+                )),
                 sv.group.name()
             ),
             sv.group.clone(),

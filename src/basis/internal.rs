@@ -104,12 +104,12 @@ pub fn bond_sets(s: &Structure) -> Vec<SiteSet> {
     );
     name_sets(orbs, |k| {
         let (a, b) = bonds[k];
-        let (x, y) = (&s.atoms[a].symbol, &s.atoms[b].symbol);
-        if x <= y {
-            format!("{x}-{y}")
-        } else {
-            format!("{y}-{x}")
-        }
+        let degree = |x: usize| bonds.iter().filter(|&&(p, q)| p == x || q == x).count();
+        crate::geom::formula::bond_label(
+            (&s.atoms[a].symbol, degree(a)),
+            (&s.atoms[b].symbol, degree(b)),
+            "-",
+        )
     })
 }
 

@@ -11,19 +11,38 @@ use std::path::PathBuf;
 pub struct ReportArgs {
     /// The session file (.toml).
     pub session: PathBuf,
-    /// Output format: text, md, latex (a standalone document), json.
-    #[arg(long, short, default_value = "md", value_parser = parse_format)]
-    pub format: Format,
+    /// Output format: text, md, latex (a standalone document), json. Default: from the
+    /// extension of --output (.md, .tex/.latex, .json, .txt/.text), else md.
+    #[arg(long, short, value_parser = parse_format)]
+    pub format: Option<Format>,
     /// Write to this file instead of standard output.
     #[arg(long, short)]
     pub output: Option<PathBuf>,
+    /// LaTeX only: write just the tables, for \input into a document of your own.
+    #[arg(long)]
+    pub fragment: bool,
 }
 
 /// Print (or write) the report of a session.
 pub fn report(a: &ReportArgs, ascii: bool) -> CliResult {
+    let format = report::export_format(a.format, a.output.as_deref()).map_err(|e| {
+        CliError::input(e.to_string())
+            .with_hint("give --format md|latex|json|text to choose one whatever the name")
+    })?;
+    if a.fragment && format != Format::Latex {
+        return Err(CliError::input(format!(
+            "--fragment is a LaTeX option; this report would be written as {}",
+            format.extension()
+        ))
+        .with_hint("add --format latex, or write to a .tex file"));
+    }
     let s = session::load_file(&a.session).map_err(|e| CliError::input(e.to_string()))?;
     let an = analysis::analyze(&s);
-    let text = report::session::render(&s, &an, a.format, ascii);
+    let text = if a.fragment {
+        report::session::latex_fragment(&s, &an)
+    } else {
+        report::session::render(&s, &an, format, ascii)
+    };
     match &a.output {
         Some(p) => session::write_atomic(p, &text).map_err(|e| CliError {
             message: e.to_string(),

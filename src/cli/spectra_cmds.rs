@@ -7,7 +7,7 @@ use super::geometry_cmds::{read_molecule, GeometryArgs};
 use super::{parse_format, CliError, CliResult};
 use crate::group::{self, PointGroup};
 use crate::report::Format;
-use crate::spectra::{self, render, CheckOptions, CombinationOptions, Fundamental};
+use crate::spectra::{self, CheckOptions, CombinationOptions, Fundamental};
 use crate::survey::survey;
 use clap::Args;
 use std::path::PathBuf;
@@ -158,22 +158,11 @@ fn print_json<T: serde::Serialize>(v: &T) {
     println!("{}", serde_json::to_string_pretty(v).unwrap_or_default());
 }
 
-fn out_text(s: String, ascii: bool) {
-    print!(
-        "{}",
-        if ascii {
-            crate::report::ascii_prose(&s)
-        } else {
-            s
-        }
-    );
-}
-
 #[derive(Args, Debug)]
 pub struct ModesArgs {
     #[command(flatten)]
     pub source: GammaSource,
-    /// Output format: text, md, json.
+    /// Output format: text (aligned columns), md, latex, json.
     #[arg(long, short, default_value = "text", value_parser = parse_format)]
     pub format: Format,
 }
@@ -183,7 +172,7 @@ pub fn modes(a: &ModesArgs, ascii: bool) -> CliResult {
     let r = spectra::modes_report(&g, &rows).map_err(spectra_err)?;
     match a.format {
         Format::Json => print_json(&r),
-        _ => out_text(render::modes_markdown(&r), ascii),
+        _ => print!("{}", crate::report::spectra::modes(&r, a.format, ascii)),
     }
     Ok(())
 }
@@ -222,7 +211,7 @@ pub struct CombosArgs {
     /// Drop levels above this harmonic position (cm⁻¹).
     #[arg(long)]
     pub max_cm: Option<f64>,
-    /// Output format: text, md, json.
+    /// Output format: text (aligned columns), md, latex, json.
     #[arg(long, short, default_value = "text", value_parser = parse_format)]
     pub format: Format,
 }
@@ -241,7 +230,10 @@ pub fn combos(a: &CombosArgs, ascii: bool) -> CliResult {
     .map_err(spectra_err)?;
     match a.format {
         Format::Json => print_json(&r),
-        _ => out_text(render::combinations_markdown(&r), ascii),
+        _ => print!(
+            "{}",
+            crate::report::spectra::combinations(&r, a.format, ascii)
+        ),
     }
     Ok(())
 }
@@ -266,7 +258,7 @@ pub struct BandsArgs {
     /// Absolute matching tolerance in cm⁻¹ (the larger of the two applies).
     #[arg(long, default_value_t = 10.0)]
     pub tol_cm: f64,
-    /// Output format: text, md, json.
+    /// Output format: text (aligned columns), md, latex, json.
     #[arg(long, short, default_value = "text", value_parser = parse_format)]
     pub format: Format,
 }
@@ -305,7 +297,7 @@ pub fn bands(a: &BandsArgs, ascii: bool) -> CliResult {
     .map_err(spectra_err)?;
     match a.format {
         Format::Json => print_json(&r),
-        _ => out_text(render::check_markdown(&r), ascii),
+        _ => print!("{}", crate::report::spectra::check(&r, a.format, ascii)),
     }
     Ok(())
 }
@@ -322,7 +314,7 @@ pub struct DescendArgs {
     /// Γ of fundamentals in the group, to show how each set splits and the activity below.
     #[arg(long)]
     pub gamma: Option<String>,
-    /// Output format: text, md, json.
+    /// Output format: text (aligned columns), md, latex, json.
     #[arg(long, short, default_value = "text", value_parser = parse_format)]
     pub format: Format,
 }
@@ -332,7 +324,7 @@ pub fn descend(a: &DescendArgs, ascii: bool) -> CliResult {
         .map_err(spectra_err)?;
     match a.format {
         Format::Json => print_json(&r),
-        _ => out_text(render::descent_markdown(&r), ascii),
+        _ => print!("{}", crate::report::spectra::descent(&r, a.format, ascii)),
     }
     Ok(())
 }

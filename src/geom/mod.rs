@@ -9,6 +9,7 @@
 pub mod bonds;
 pub mod elements;
 mod error;
+pub mod formula;
 mod grid;
 mod linalg;
 pub mod molecule;

@@ -32,3 +32,28 @@ pub fn render(rows: &[Vec<String>], ascii: bool) -> String {
     }
     out
 }
+
+/// Render rows as a Markdown table: header, separator row, one row per line; a `|` inside a
+/// cell is escaped and an empty header cell stays a cell.
+pub fn markdown(rows: &[Vec<String>]) -> String {
+    let ncol = rows.iter().map(|r| r.len()).max().unwrap_or(0);
+    let row = |r: &[String]| {
+        let mut cells: Vec<String> = r
+            .iter()
+            .map(|c| c.replace('|', "\\|").replace('\n', " "))
+            .collect();
+        cells.resize(ncol, String::new());
+        format!("| {} |\n", cells.join(" | "))
+            .replace("|  |", "| |")
+            .replace("|  |", "| |")
+    };
+    let mut out = String::new();
+    if let Some(h) = rows.first() {
+        out.push_str(&row(h));
+        out.push_str(&format!("|{}\n", "---|".repeat(ncol)));
+        for r in &rows[1..] {
+            out.push_str(&row(r));
+        }
+    }
+    out
+}

@@ -3,9 +3,11 @@
 //! Owns presentation only; never computes chemistry (that is `rep`, `group`, …).
 
 pub mod grid;
+pub mod latex;
 pub mod molecule;
 pub mod reduction;
 pub mod session;
+pub mod spectra;
 pub mod survey;
 pub mod table;
 
@@ -29,6 +31,58 @@ impl Format {
             _ => return None,
         })
     }
+
+    /// The usual file extension of the format.
+    pub fn extension(self) -> &'static str {
+        match self {
+            Format::Text => "txt",
+            Format::Markdown => "md",
+            Format::Latex => "tex",
+            Format::Json => "json",
+        }
+    }
+}
+
+/// The file extensions a report can be written to, and what each writes.
+pub const EXPORT_EXTENSIONS: &str = ".md (Markdown), .tex or .latex (LaTeX), .json, .txt or .text";
+
+/// Why an export target was refused: its extension names no format salcdesk writes.
+#[derive(Debug, Clone, PartialEq, Eq, thiserror::Error)]
+#[error("cannot tell what to write to {path}: {what} (salcdesk writes {EXPORT_EXTENSIONS})")]
+pub struct UnknownExtension {
+    pub path: String,
+    pub what: String,
+}
+
+/// The format of an export: the one asked for (`--format`) wins; otherwise the file's
+/// extension decides (`.md`, `.tex`/`.latex`, `.json`, `.txt`/`.text`, any case); standard
+/// output (no file) gets Markdown. Anything else — `.pdf`, `.docx`, no extension — is refused
+/// rather than filled with text of another kind.
+pub fn export_format(
+    explicit: Option<Format>,
+    path: Option<&std::path::Path>,
+) -> Result<Format, UnknownExtension> {
+    if let Some(f) = explicit {
+        return Ok(f);
+    }
+    let Some(path) = path else {
+        return Ok(Format::Markdown);
+    };
+    let ext = path.extension().and_then(|e| e.to_str());
+    let found = ext.and_then(|e| match e.to_ascii_lowercase().as_str() {
+        "md" | "markdown" => Some(Format::Markdown),
+        "tex" | "latex" => Some(Format::Latex),
+        "json" => Some(Format::Json),
+        "txt" | "text" => Some(Format::Text),
+        _ => None,
+    });
+    found.ok_or_else(|| UnknownExtension {
+        path: path.display().to_string(),
+        what: match path.extension() {
+            Some(e) => format!("'.{}' is not a report format", e.to_string_lossy()),
+            None => "the name has no extension".into(),
+        },
+    })
 }
 
 /// Transliterate prose (orientation notes, messages) for ASCII-only terminals.

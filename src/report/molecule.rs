@@ -7,7 +7,6 @@
 use super::Format;
 use crate::analysis::{Analysis, BondSalcs};
 use crate::salc::{self, View};
-use crate::spectra::render as sr;
 use serde_json::{json, Value};
 
 fn view(b: &BondSalcs) -> Option<View<'_>> {
@@ -34,17 +33,25 @@ fn view(b: &BondSalcs) -> Option<View<'_>> {
 fn heading(title: &str, format: Format) -> String {
     match format {
         Format::Markdown => format!("\n## {title}\n\n"),
-        Format::Latex => format!("\\subsection*{{{}}}\n", super::session::latex_escape(title)),
         _ => format!("\n{title}\n{}\n", "-".repeat(title.chars().count())),
     }
 }
 
-/// Markdown headings of a part rendered on its own, two levels down inside the report.
-fn demote(md: &str) -> String {
+/// Markdown of a part rendered on its own, its headings shifted so that its top level is
+/// `level` (headings never jump a level inside the report).
+fn demote_to(md: &str, level: usize) -> String {
+    let depth = |l: &str| l.chars().take_while(|c| *c == '#').count();
+    let top = md
+        .lines()
+        .filter(|l| l.starts_with('#'))
+        .map(depth)
+        .min()
+        .unwrap_or(level);
     md.lines()
         .map(|l| {
             if l.starts_with('#') {
-                format!("##{l}\n")
+                let d = depth(l) - top + level;
+                format!("{}{}\n", "#".repeat(d), &l[depth(l)..])
             } else {
                 format!("{l}\n")
             }
@@ -52,33 +59,23 @@ fn demote(md: &str) -> String {
         .collect()
 }
 
-/// Plain text set in a LaTeX document as it is (ASCII).
-fn verbatim(text: &str) -> String {
-    format!(
-        "\\begin{{verbatim}}\n{}\\end{{verbatim}}\n",
-        super::ascii_prose(text).replace("\\end{verbatim}", "\\end {verbatim}")
-    )
+/// Text, Markdown or LaTeX for the molecule part (empty when the session has neither
+/// remarks, a geometry nor a Γvib). LaTeX is typeset from the Markdown: headings, real tables,
+/// lists and the notation in math mode.
+pub fn render(a: &Analysis, format: Format, ascii: bool) -> String {
+    match format {
+        Format::Latex => super::latex::from_markdown(&render(a, Format::Markdown, false)),
+        Format::Json => serde_json::to_string_pretty(&to_json(a)).unwrap_or_default() + "\n",
+        _ => parts(a, format, ascii),
+    }
 }
 
-/// Text, Markdown or LaTeX for the molecule part (empty when the session has neither
-/// remarks, a geometry nor a Γvib).
-pub fn render(a: &Analysis, format: Format, ascii: bool) -> String {
+fn parts(a: &Analysis, format: Format, ascii: bool) -> String {
+    let md = format == Format::Markdown;
     let mut o = String::new();
-    let tex = format == Format::Latex;
-    // LaTeX takes the ASCII text of the survey and spectra inside verbatim blocks.
-    let (inner, inner_ascii) = if tex {
-        (Format::Text, true)
-    } else {
-        (format, ascii)
-    };
     let body = |s: String| -> String {
-        let s = if inner_ascii {
+        if ascii {
             super::ascii_prose(&s)
-        } else {
-            s
-        };
-        if tex {
-            verbatim(&s)
         } else {
             s
         }
@@ -91,13 +88,11 @@ pub fn render(a: &Analysis, format: Format, ascii: bool) -> String {
     if let Some(ga) = &a.geometry {
         o.push_str(&heading("Molecule", format));
         match &ga.survey {
-            Ok(sv) => o.push_str(&body(demote(&super::survey::render(
-                &ga.source,
-                &sv.oriented.molecule,
-                sv,
-                inner,
-                inner_ascii,
-            )))),
+            Ok(sv) => {
+                let part =
+                    super::survey::render(&ga.source, &sv.oriented.molecule, sv, format, ascii);
+                o.push_str(&body(if md { demote_to(&part, 3) } else { part }));
+            }
             Err(e) => o.push_str(&body(format!("No survey: {e}\n"))),
         }
         if let Some(res) = &ga.salcs {
@@ -106,8 +101,10 @@ pub fn render(a: &Analysis, format: Format, ascii: bool) -> String {
                     for b in sets {
                         o.push_str(&heading(&format!("Stretch SALCs: {}", b.name), format));
                         match view(b) {
-                            Some(v) if tex => o.push_str(&salc::render(&v, Format::Latex, true)),
-                            Some(v) => o.push_str(&demote(&salc::render(&v, format, ascii))),
+                            Some(v) => {
+                                let part = salc::render(&v, format, ascii);
+                                o.push_str(&if md { demote_to(&part, 3) } else { part });
+                            }
                             None => o.push_str(&body(format!(
                                 "No SALCs: {}\n",
                                 b.result.as_ref().err().cloned().unwrap_or_default()
@@ -122,7 +119,7 @@ pub fn render(a: &Analysis, format: Format, ascii: bool) -> String {
     if let Some(sp) = &a.spectra {
         o.push_str(&heading(&format!("Spectra: Γvib of {}", sp.source), format));
         match &sp.modes {
-            Ok(m) => o.push_str(&body(sr::modes_markdown(m))),
+            Ok(m) => o.push_str(&super::spectra::modes(m, format, ascii)),
             Err(e) => o.push_str(&body(format!("{e}\n"))),
         }
         if let Some(c) = &sp.check {
@@ -131,17 +128,21 @@ pub fn render(a: &Analysis, format: Format, ascii: bool) -> String {
                 format,
             ));
             match c {
-                Ok(c) => o.push_str(&body(sr::check_markdown(c))),
+                Ok(c) => o.push_str(&super::spectra::check(c, format, ascii)),
                 Err(e) => o.push_str(&body(format!("{e}\n"))),
             }
         }
         o.push_str(&heading("Overtones and binary combinations", format));
         match &sp.combinations {
-            Ok(c) => o.push_str(&body(sr::combinations_markdown(c))),
+            Ok(c) => o.push_str(&super::spectra::combinations(c, format, ascii)),
             Err(e) => o.push_str(&body(format!("{e}\n"))),
         }
     }
-    o
+    if ascii {
+        super::ascii_prose(&o)
+    } else {
+        o
+    }
 }
 
 /// The same as JSON fields: `remarks`, `geometry`, `salcs`, `spectra`.

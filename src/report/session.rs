@@ -210,7 +210,7 @@ fn text(s: &Session, a: &Result<Analysis, Error>, ascii: bool) -> String {
         }
         if let Some(Ok(m)) = &set.modes {
             o.push('\n');
-            o.push_str(&crate::spectra::render::modes_markdown(m));
+            o.push_str(&super::spectra::modes(m, Format::Text, ascii));
         }
     }
     o.push_str(&super::molecule::render(a, Format::Text, ascii));
@@ -227,27 +227,8 @@ fn text(s: &Session, a: &Result<Analysis, Error>, ascii: bool) -> String {
     o
 }
 
-fn md_row(cells: &[String]) -> String {
-    format!(
-        "| {} |\n",
-        cells
-            .iter()
-            .map(|c| c.replace('|', "\\|"))
-            .collect::<Vec<_>>()
-            .join(" | ")
-    )
-}
-
 fn md_table(rows: &[Vec<String>]) -> String {
-    let mut o = String::new();
-    if let Some(h) = rows.first() {
-        o.push_str(&md_row(h));
-        o.push_str(&format!("|{}\n", "---|".repeat(h.len())));
-        for r in &rows[1..] {
-            o.push_str(&md_row(r));
-        }
-    }
-    o
+    super::grid::markdown(rows)
 }
 
 fn markdown(s: &Session, a: &Result<Analysis, Error>, ascii: bool) -> String {
@@ -265,7 +246,15 @@ fn markdown(s: &Session, a: &Result<Analysis, Error>, ascii: bool) -> String {
             return o;
         }
     };
-    o.push_str(&table::render(&a.group, Format::Markdown, ascii));
+    o.push_str(&format!(
+        "## Point group {}\n\n",
+        if ascii {
+            a.group.name()
+        } else {
+            &a.group.table.symbol
+        }
+    ));
+    o.push_str(&table::markdown_body(&a.group, nt(ascii), ascii));
     if !s.orientation.is_empty() {
         o.push_str(&format!("\nThis molecule: {}\n", s.orientation));
     }
@@ -303,78 +292,39 @@ fn markdown(s: &Session, a: &Result<Analysis, Error>, ascii: bool) -> String {
     o
 }
 
-/// Escape text for LaTeX, spelling out the non-ASCII characters sessions commonly hold.
+/// Escape text for LaTeX (see [`super::latex::escape`]).
 pub fn latex_escape(s: &str) -> String {
-    let mut o = String::new();
-    for c in s.chars() {
-        match c {
-            '\\' => o.push_str("\\textbackslash{}"),
-            '{' | '}' | '$' | '&' | '#' | '_' | '%' => {
-                o.push('\\');
-                o.push(c);
-            }
-            '^' => o.push_str("\\^{}"),
-            '~' => o.push_str("\\~{}"),
-            '–' => o.push_str("--"),
-            '—' => o.push_str("---"),
-            '′' => o.push('\''),
-            '″' => o.push_str("''"),
-            '×' => o.push_str("$\\times$"),
-            '·' => o.push_str("$\\cdot$"),
-            'Å' => o.push_str("\\AA{}"),
-            '⁻' => o.push_str("$^{-}$"),
-            '¹' => o.push_str("$^{1}$"),
-            '²' => o.push_str("$^{2}$"),
-            '³' => o.push_str("$^{3}$"),
-            '₀'..='₉' => o.push_str(&format!("$_{}$", c as u32 - '₀' as u32)),
-            'σ' => o.push_str("$\\sigma$"),
-            'π' => o.push_str("$\\pi$"),
-            'χ' => o.push_str("$\\chi$"),
-            'Γ' => o.push_str("$\\Gamma$"),
-            'ν' => o.push_str("$\\nu$"),
-            'ᵥ' => o.push_str("$_v$"),
-            'ₕ' => o.push_str("$_h$"),
-            'ᵈ' => o.push_str("$_d$"),
-            c if c.is_ascii() => o.push(c),
-            _ => o.push('?'),
-        }
-    }
-    o
+    super::latex::escape(s)
 }
 
-fn latex_table(rows: &[Vec<String>], math: bool) -> String {
-    let n = rows.first().map(|r| r.len()).unwrap_or(0);
-    let cell = |c: &String, k: usize| {
-        if math && k > 0 {
-            format!("${}$", table::latex_text(c))
-        } else {
-            latex_escape(c)
-        }
-    };
-    let mut o = format!(
-        "\\begin{{tabular}}{{l{}}}\n\\toprule\n",
-        "c".repeat(n.saturating_sub(1))
-    );
-    for (i, r) in rows.iter().enumerate() {
-        let cells: Vec<String> = r
+/// The unmoved-count/χ table of a set as LaTeX cells: classes and numbers in math mode.
+fn latex_set_rows(a: &Analysis, set: &SetAnalysis) -> Vec<Vec<String>> {
+    let rows = set_rows(a, set, true);
+    let mut head = vec![String::new()];
+    head.extend(
+        a.group
+            .table
+            .classes
             .iter()
-            .enumerate()
-            .map(|(k, c)| if i == 0 { latex_escape(c) } else { cell(c, k) })
-            .collect();
-        o.push_str(&cells.join(" & "));
-        o.push_str(" \\\\\n");
-        if i == 0 {
-            o.push_str("\\midrule\n");
+            .map(|c| format!("${}$", table::latex_class(&c.ascii))),
+    );
+    let mut out = vec![head];
+    for r in &rows[1..] {
+        let mut row = vec![latex_escape(&r[0])];
+        if r[0] == "chi" {
+            row[0] = "$\\chi$".into();
         }
+        row.extend(r[1..].iter().map(|c| format!("${}$", table::latex_text(c))));
+        out.push(row);
     }
-    o.push_str("\\bottomrule\n\\end{tabular}\n");
-    o
+    out
 }
 
 fn latex(s: &Session, a: &Result<Analysis, Error>) -> String {
+    use super::latex::{inline, tabular};
     let mut o = String::from(
-        "\\documentclass[11pt]{article}\n\\usepackage[T1]{fontenc}\n\\usepackage{amsmath}\n\
-         \\usepackage{booktabs}\n\\usepackage[margin=2cm,landscape]{geometry}\n\
+        "\\documentclass[11pt]{article}\n\\usepackage[T1]{fontenc}\n\\usepackage[utf8]{inputenc}\n\
+         \\usepackage{amsmath}\n\\usepackage{booktabs}\n\\usepackage[margin=2cm,landscape]{geometry}\n\
          \\begin{document}\n",
     );
     let title = if s.title.is_empty() {
@@ -388,19 +338,19 @@ fn latex(s: &Session, a: &Result<Analysis, Error>) -> String {
         Ok(a) => {
             o.push_str(&format!(
                 "\\subsection*{{Point group ${}$}}\n",
-                table::latex_label(&a.group.table.name)
+                super::latex::group_math(&a.group.table.name)
             ));
             o.push_str("\\begin{center}\n");
             o.push_str(&table::render(&a.group, Format::Latex, true));
             o.push_str("\\end{center}\n");
             o.push_str(&format!(
                 "\\noindent Axes: {}\n\n",
-                latex_escape(a.group.table.orientation.trim())
+                inline(a.group.table.orientation.trim())
             ));
             if !s.orientation.is_empty() {
                 o.push_str(&format!(
                     "\\noindent This molecule: {}\n\n",
-                    latex_escape(&s.orientation)
+                    super::latex::inline(&s.orientation)
                 ));
             }
             for set in &a.sets {
@@ -410,67 +360,55 @@ fn latex(s: &Session, a: &Result<Analysis, Error>) -> String {
                     set.kind.name(),
                     set.members.len()
                 ));
-                let mut rows = set_rows(a, set, true);
-                rows[0][0] = String::new();
-                o.push_str("\\begin{center}\n");
-                o.push_str(&latex_table(&rows, true));
-                o.push_str("\\end{center}\n");
+                o.push_str(&tabular(&latex_set_rows(a, set)));
                 match &*set.outcome {
                     Outcome::Finite { reduction: r, .. } => {
                         o.push_str(&reduction::render(&a.group, r, Format::Latex, true));
                         let res = match r.multiplicities() {
                             Ok(m) => format!("$\\Gamma = {}$", latex_sum(a, &m)),
-                            Err(_) => latex_escape(&set_result(a, set, true)),
+                            Err(_) => inline(&set_result(a, set, false)),
                         };
                         o.push_str(&format!("\\noindent {res}\n\n"));
                     }
-                    _ => o.push_str(&format!("{}\n\n", latex_escape(&set_result(a, set, true)))),
+                    _ => o.push_str(&format!("{}\n\n", inline(&set_result(a, set, false)))),
                 }
-                for l in vibration_lines(a, set, true) {
-                    o.push_str(&format!("\\noindent {}\n\n", latex_escape(l.trim_start())));
+                for l in vibration_lines(a, set, false) {
+                    o.push_str(&format!("\\noindent {}\n\n", inline(l.trim_start())));
                 }
                 if let Some(Ok(m)) = &set.modes {
-                    let act: Vec<String> = m
-                        .modes
-                        .iter()
-                        .map(|l| {
-                            let what = match (l.ir, l.raman) {
-                                (true, true) => "IR, Raman",
-                                (true, false) => "IR",
-                                (false, true) => "Raman",
-                                _ => "silent",
-                            };
-                            let pol = if l.raman && l.polarized { ", p" } else { "" };
-                            format!("{} {} ({what}{pol})", l.multiplicity, l.irrep)
-                        })
-                        .collect();
-                    o.push_str(&format!(
-                        "\\noindent Activity: {}. IR bands: {}; Raman bands: {}; coincident: {}; silent: {}.\n\n",
-                        latex_escape(&act.join("; ")),
-                        m.ir_bands,
-                        m.raman_bands,
-                        m.coincident_bands,
-                        m.silent_fundamentals
-                    ));
+                    o.push_str(&super::spectra::modes(m, Format::Latex, false));
                 }
             }
-            o.push_str(&super::molecule::render(a, Format::Latex, true));
+            o.push_str(&super::molecule::render(a, Format::Latex, false));
             for (name, m) in missing(a) {
                 o.push_str(&format!("\\subsection*{{{name}}}\n{}.\n", latex_escape(m)));
             }
         }
     }
     if !s.bands.is_empty() {
-        o.push_str("\\subsection*{Observed bands}\n\\begin{center}\n");
-        let mut rows = band_rows(&s.bands);
-        rows[0][0] = "cm^-1".into();
-        o.push_str(&latex_table(&rows, false));
-        o.push_str("\\end{center}\n");
+        o.push_str("\\subsection*{Observed bands}\n");
+        let rows = band_rows(&s.bands);
+        let mut cells: Vec<Vec<String>> = vec![rows[0]
+            .iter()
+            .map(|h| {
+                if h == "cm-1" {
+                    "cm$^{-1}$".to_string()
+                } else {
+                    latex_escape(h)
+                }
+            })
+            .collect()];
+        cells.extend(
+            rows[1..]
+                .iter()
+                .map(|r| r.iter().map(|c| latex_escape(c)).collect()),
+        );
+        o.push_str(&tabular(&cells));
     }
     if !s.notes.trim().is_empty() {
         o.push_str("\\subsection*{Notes}\n");
         for para in s.notes.trim().split("\n\n") {
-            o.push_str(&latex_escape(para));
+            o.push_str(&super::latex::inline(para));
             o.push_str("\n\n");
         }
     }
@@ -603,4 +541,10 @@ pub fn label(l: &str, ascii: bool) -> String {
     } else {
         display_label(l)
     }
+}
+
+/// The tables of the LaTeX report alone, for `\input` into a document of one's own (which
+/// loads `booktabs`); each table follows a comment naming the heading it stood under.
+pub fn latex_fragment(s: &Session, a: &Result<Analysis, Error>) -> String {
+    super::latex::tables_only(&latex(s, a))
 }

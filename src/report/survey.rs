@@ -6,59 +6,24 @@ use crate::rep::{format_sum, real_terms};
 use crate::survey::Survey;
 use serde_json::{json, Value};
 
-/// Hill-order formula (C, H, then alphabetical), e.g. `CH4`, `H2O`.
+/// The molecule's formula as chemists write it (`SF6`, `PCl5`, `[PtCl4]`, `CH4`; ASCII digits):
+/// see [`crate::geom::formula`].
 pub fn formula(mol: &Molecule) -> String {
-    let mut counts: std::collections::BTreeMap<String, usize> = Default::default();
-    for a in &mol.atoms {
-        *counts.entry(a.symbol().to_string()).or_default() += 1;
+    crate::geom::formula::formula(mol.atoms.iter().map(|a| a.symbol()))
+}
+
+/// The formula for display: Unicode subscripts unless `ascii`.
+pub fn formula_text(mol: &Molecule, ascii: bool) -> String {
+    let f = formula(mol);
+    if ascii {
+        f
+    } else {
+        crate::geom::formula::subscripts(&f)
     }
-    let mut keys: Vec<String> = counts.keys().cloned().collect();
-    let has_c = counts.contains_key("C");
-    keys.sort_by_key(|k| match (has_c, k.as_str()) {
-        (true, "C") => (0, k.clone()),
-        (true, "H") => (1, k.clone()),
-        _ => (2, k.clone()),
-    });
-    keys.iter()
-        .map(|k| {
-            let n = counts[k];
-            if n == 1 {
-                k.clone()
-            } else {
-                format!("{k}{n}")
-            }
-        })
-        .collect()
 }
 
 fn gamma(s: &Survey, m: &[u64], ascii: bool) -> String {
     format_sum(&s.group, m, !ascii)
-}
-
-fn signed(s: &Survey, m: &[i64], ascii: bool) -> String {
-    let parts: Vec<String> = m
-        .iter()
-        .enumerate()
-        .filter(|(_, n)| **n != 0)
-        .map(|(i, n)| {
-            let ir = &s.group.table.irreps[i];
-            let l = if ascii {
-                ir.label.clone()
-            } else {
-                ir.display()
-            };
-            match *n {
-                1 => l,
-                -1 => format!("−{l}").replace('−', if ascii { "-" } else { "−" }),
-                k => format!("{k}{l}"),
-            }
-        })
-        .collect();
-    if parts.is_empty() {
-        "0".into()
-    } else {
-        parts.join(" + ").replace("+ −", "− ").replace("+ -", "- ")
-    }
 }
 
 /// JSON object of a survey (`"point_group"`, `"n_atoms"`, `"gamma_vib"`, `"n_modes"`, …).
@@ -110,7 +75,8 @@ pub fn to_json(name: &str, mol: &Molecule, s: &Survey) -> Value {
             "gamma": format_sum(g, &a.gamma, false),
         })).collect::<Vec<_>>(),
         "gamma_stretch": format_sum(g, &s.stretches, false),
-        "gamma_bend_remainder": signed(s, &s.bend_remainder, true),
+        "gamma_bend_remainder": format_sum(g, &s.bend_remainder.iter().map(|&n| n.max(0) as u64).collect::<Vec<_>>(), false),
+        "stretch_beyond_vib": format_sum(g, &s.bend_remainder.iter().map(|&n| n.min(0).unsigned_abs()).collect::<Vec<_>>(), false),
         "gamma_bend": format_sum(g, &s.bends, false),
         "redundant": format_sum(g, &s.redundant, false),
         "uncovered": format_sum(g, &s.uncovered, false),
@@ -140,6 +106,42 @@ pub fn near_miss_line(s: &Survey, ascii: bool) -> String {
     parts.join("; ")
 }
 
+/// What Γvib − Γstretch says, in words, never with a negative count: the part the bends and
+/// other deformations must span, and (when the bond set spans more than the vibrations of some
+/// irrep) what the stretches contain beyond Γvib and why.
+pub fn remainder_lines(s: &Survey, ascii: bool) -> Vec<String> {
+    let g = &s.group;
+    let gam = if ascii { "Gamma" } else { "Γ" };
+    let pos: Vec<u64> = s.bend_remainder.iter().map(|&n| n.max(0) as u64).collect();
+    let neg: Vec<u64> = s
+        .bend_remainder
+        .iter()
+        .map(|&n| n.min(0).unsigned_abs())
+        .collect();
+    let mut out = Vec::new();
+    if neg.iter().all(|&n| n == 0) {
+        out.push(format!(
+            "{gam}vib − {gam}stretch (bends and other deformations) = {}",
+            format_sum(g, &pos, !ascii)
+        ));
+    } else {
+        out.push(format!(
+            "the bond stretches span more than {gam}vib: beyond it they contain {} — \
+             combinations of the bonds that are not vibrations (more bonds than the molecule \
+             has independent stretching freedoms in these symmetries, e.g. a closed ring or \
+             cage, or bonds added by hand), i.e. redundant stretch coordinates",
+            format_sum(g, &neg, !ascii)
+        ));
+        out.push(format!(
+            "bends and other deformations span at least {}",
+            format_sum(g, &pos, !ascii)
+        ));
+    }
+    out.into_iter()
+        .map(|l| if ascii { super::ascii_prose(&l) } else { l })
+        .collect()
+}
+
 /// Text or Markdown rendering.
 pub fn render(name: &str, mol: &Molecule, s: &Survey, format: Format, ascii: bool) -> String {
     if format == Format::Json {
@@ -155,24 +157,35 @@ pub fn render(name: &str, mol: &Molecule, s: &Survey, format: Format, ascii: boo
     let mut out = String::new();
     let h = |t: &str| {
         if md {
-            format!("\n### {t}\n\n")
+            format!("\n## {t}\n\n")
         } else {
             format!("\n{t}\n")
         }
     };
+    // One line of a list: a Markdown item, or the line itself in text.
+    let item = |t: &str| {
+        if md {
+            format!("- {t}\n")
+        } else {
+            format!("{t}\n")
+        }
+    };
     out.push_str(&format!(
         "{}{name}: {} ({} atoms), point group {gname}\n",
-        if md { "## " } else { "" },
-        formula(mol),
+        if md { "# " } else { "" },
+        formula_text(mol, ascii),
         mol.atoms.len()
     ));
-    out.push_str(&format!("{}\n", near_miss_line(s, ascii)));
+    if md {
+        out.push('\n');
+    }
+    out.push_str(&item(&near_miss_line(s, ascii)));
     let r = &s.oriented.rotation;
-    out.push_str(&format!(
-        "standard orientation: rotation [{:.4} {:.4} {:.4}; {:.4} {:.4} {:.4}; {:.4} {:.4} {:.4}] about centre ({:.4}, {:.4}, {:.4})\n",
+    out.push_str(&item(&format!(
+        "standard orientation: rotation [{:.4} {:.4} {:.4}; {:.4} {:.4} {:.4}; {:.4} {:.4} {:.4}] about centre ({:.4}, {:.4}, {:.4})",
         r[(0, 0)], r[(0, 1)], r[(0, 2)], r[(1, 0)], r[(1, 1)], r[(1, 2)], r[(2, 0)], r[(2, 1)], r[(2, 2)],
         s.oriented.centre.x, s.oriented.centre.y, s.oriented.centre.z
-    ));
+    )));
     out.push_str(&h("unmoved atoms per class"));
     let w = &s.working;
     let mut rows = vec![w
@@ -188,18 +201,22 @@ pub fn render(name: &str, mol: &Molecule, s: &Survey, format: Format, ascii: boo
         })
         .collect::<Vec<_>>()];
     rows.push(s.unmoved_atoms.iter().map(|n| n.to_string()).collect());
-    out.push_str(&grid::render(&rows, ascii));
+    out.push_str(&if md {
+        grid::markdown(&rows)
+    } else {
+        grid::render(&rows, ascii)
+    });
     let gam = if ascii { "Gamma" } else { "Γ" };
     out.push_str(&h("representations"));
-    out.push_str(&format!(
-        "{gam}3N  = {}\n",
+    out.push_str(&item(&format!(
+        "{gam}3N  = {}",
         gamma(s, &s.vibrations.gamma_3n, ascii)
-    ));
-    out.push_str(&format!(
-        "{gam}vib = {}   ({} modes)\n",
+    )));
+    out.push_str(&item(&format!(
+        "{gam}vib = {}   ({} modes)",
         gamma(s, &s.vibrations.vibrations, ascii),
         s.vibrations.n_modes
-    ));
+    )));
     out.push_str(&h("bond sets"));
     for b in &s.bond_sets {
         let label = if ascii {
@@ -207,26 +224,22 @@ pub fn render(name: &str, mol: &Molecule, s: &Survey, format: Format, ascii: boo
         } else {
             b.set.label.clone()
         };
-        out.push_str(
+        out.push_str(&item(
             &format!(
-                "{label} ×{}: {}\n",
+                "{label} ×{}: {}",
                 b.set.bonds.len(),
                 gamma(s, &b.gamma, ascii)
             )
             .replace('×', if ascii { "x" } else { "×" }),
-        );
+        ));
     }
-    out.push_str(&format!(
-        "{gam}stretch = {}\n",
+    out.push_str(&item(&format!(
+        "{gam}stretch = {}",
         gamma(s, &s.stretches, ascii)
-    ));
-    out.push_str(
-        &format!(
-            "{gam}vib − {gam}stretch (bends and other deformations) = {}\n",
-            signed(s, &s.bend_remainder, ascii)
-        )
-        .replace('−', if ascii { "-" } else { "−" }),
-    );
+    )));
+    for l in remainder_lines(s, ascii) {
+        out.push_str(&item(&l));
+    }
     if !s.angle_sets.is_empty() {
         out.push_str(&h("angle sets"));
         for a in &s.angle_sets {
@@ -235,23 +248,23 @@ pub fn render(name: &str, mol: &Molecule, s: &Survey, format: Format, ascii: boo
             } else {
                 a.set.label.clone()
             };
-            out.push_str(
+            out.push_str(&item(
                 &format!(
-                    "{label} ×{}: {}\n",
+                    "{label} ×{}: {}",
                     a.set.angles.len(),
                     gamma(s, &a.gamma, ascii)
                 )
                 .replace('×', if ascii { "x" } else { "×" }),
-            );
+            ));
         }
-        out.push_str(&format!(
-            "redundant combinations (stretches + bends beyond {gam}vib): {}\n",
+        out.push_str(&item(&format!(
+            "redundant combinations (stretches + bends beyond {gam}vib): {}",
             gamma(s, &s.redundant, ascii)
-        ));
-        out.push_str(&format!(
-            "not covered by stretches + bends (torsions, out-of-plane): {}\n",
+        )));
+        out.push_str(&item(&format!(
+            "not covered by stretches + bends (torsions, out-of-plane): {}",
             gamma(s, &s.uncovered, ascii)
-        ));
+        )));
     }
     if !s.notes.is_empty() {
         out.push_str(&h("notes"));

@@ -135,18 +135,27 @@ fn wrap(s: &str) -> String {
 
 fn markdown(g: &PointGroup, nt: Notation, ascii: bool) -> String {
     let t = &g.table;
-    let h = header(g, ascii);
-    let mut out = format!("### {}\n\n", if ascii { &t.name } else { &t.symbol });
-    out.push_str(&format!("| {} |\n", h.join(" | ")));
-    out.push_str(&format!("|{}\n", "---|".repeat(h.len())));
+    format!(
+        "# {}\n\n{}",
+        if ascii { &t.name } else { &t.symbol },
+        markdown_body(g, nt, ascii)
+    )
+}
+
+/// The Markdown table and the table's orientation note, without a heading (for reports that
+/// put the table under a heading of their own).
+pub fn markdown_body(g: &PointGroup, nt: Notation, ascii: bool) -> String {
+    let t = &g.table;
+    let mut rows = vec![header(g, ascii)];
     for i in 0..t.irreps.len() {
         let mut r = vec![label(g, i, ascii)];
         for c in 0..t.classes.len() {
             r.push(char_text(g, i, c, nt));
         }
         r.push(functions(t, i, ascii).join("; "));
-        out.push_str(&format!("| {} |\n", r.join(" | ")));
+        rows.push(r);
     }
+    let mut out = grid::markdown(&rows);
     let orientation = if ascii {
         super::ascii_prose(&t.orientation)
     } else {
@@ -209,62 +218,92 @@ pub fn latex_text(s: &str) -> String {
     out
 }
 
-/// LaTeX form of a Mulliken label: A1g → A_{1g}, E' → E', 1E → {}^{1}E, Sigma+g → \Sigma_g^+.
+/// LaTeX form of a Mulliken label (math mode): A1g → \mathrm{A}_{1g}, E'' → \mathrm{E}'',
+/// 1E → {}^{1}\mathrm{E}, Sigmag+ → \Sigma_{g}^+, Piu → \Pi_{u} (Mulliken 1955 notation).
 pub fn latex_label(label: &str) -> String {
-    let mut s = label.to_string();
+    let mut s = label;
     let mut prefix = String::new();
-    if s.starts_with(|c: char| c.is_ascii_digit()) {
-        let d: String = s.chars().take_while(|c| c.is_ascii_digit()).collect();
-        prefix = format!("{{}}^{{{d}}}");
-        s = s[d.len()..].to_string();
+    let d = s.chars().take_while(|c| c.is_ascii_digit()).count();
+    if d > 0 {
+        prefix = format!("{{}}^{{{}}}", &s[..d]);
+        s = &s[d..];
     }
-    for (a, b) in [
+    let greek = [
         ("Sigma", "\\Sigma"),
         ("Pi", "\\Pi"),
         ("Delta", "\\Delta"),
         ("Phi", "\\Phi"),
-    ] {
-        if let Some(r) = s.strip_prefix(a) {
-            s = format!("{b}{{}}{r}");
+        ("Gamma", "\\Gamma"),
+    ];
+    let (head, rest) = match greek.iter().find(|(a, _)| s.starts_with(a)) {
+        Some((a, b)) => (b.to_string(), &s[a.len()..]),
+        None => {
+            let n = s.chars().next().map(|c| c.len_utf8()).unwrap_or(0);
+            (format!("\\mathrm{{{}}}", &s[..n]), &s[n..])
         }
-    }
-    let sign = if s.contains('+') {
+    };
+    let sign = if rest.contains('+') {
         "^+"
-    } else if s.contains('-') {
+    } else if rest.contains('-') {
         "^-"
     } else {
         ""
     };
-    s = s.replace(['+', '-'], "");
-    let primes: String = s.chars().filter(|c| *c == '\'').collect();
-    let s2: String = s.chars().filter(|c| *c != '\'').collect();
-    let letter_end = s2
-        .char_indices()
-        .find(|(_, c)| c.is_ascii_digit() || *c == 'g' || *c == 'u')
-        .map(|(k, _)| k)
-        .unwrap_or(s2.len());
-    let (head, sub) = s2.split_at(letter_end);
+    let primes: String = rest.chars().filter(|c| *c == '\'').collect();
+    let sub: String = rest
+        .chars()
+        .filter(|c| !matches!(c, '\'' | '+' | '-'))
+        .collect();
     let sub = if sub.is_empty() {
         String::new()
     } else {
         format!("_{{{sub}}}")
     };
-    format!("{prefix}\\mathrm{{{head}}}{sub}{primes}{sign}")
+    format!("{prefix}{head}{sub}{primes}{sign}")
 }
 
-fn latex_class(ascii: &str) -> String {
-    let s = ascii
-        .replace("sv", "\\sigma_v")
-        .replace("sh", "\\sigma_h")
-        .replace("sd", "\\sigma_d")
-        .replace("inf", "\\infty");
-    // C3 → C_3 ; S4 → S_4
+/// LaTeX math of a class symbol (ASCII spelling): `2C3` → `2C_{3}`, `C2'` → `C_{2}'`,
+/// `S4^3` → `S_{4}^{3}`, `3sv` → `3\sigma_{v}`, `sh` → `\sigma_{h}`, `S10` → `S_{10}`.
+pub fn latex_class(ascii: &str) -> String {
+    let chars: Vec<char> = ascii.chars().collect();
     let mut out = String::new();
-    let chars: Vec<char> = s.chars().collect();
-    for (k, c) in chars.iter().enumerate() {
-        out.push(*c);
-        if (*c == 'C' || *c == 'S') && chars.get(k + 1).is_some_and(|d| d.is_ascii_digit()) {
-            out.push('_');
+    let mut k = 0;
+    while k < chars.len() {
+        let c = chars[k];
+        let rest: String = chars[k..].iter().collect();
+        if c == 's' && matches!(chars.get(k + 1), Some('h' | 'v' | 'd')) {
+            out.push_str(&format!("\\sigma_{{{}}}", chars[k + 1]));
+            k += 2;
+        } else if rest.starts_with("inf") {
+            out.push_str("\\infty ");
+            k += 3;
+        } else if rest.starts_with("phi") {
+            out.push_str("\\varphi ");
+            k += 3;
+        } else if (c == 'C' || c == 'S' || c == '^')
+            && chars
+                .get(k + 1)
+                .is_some_and(|d| d.is_ascii_digit() || *d == 'i')
+        {
+            let mut j = k + 1;
+            if chars[j] == 'i' {
+                out.push(c);
+                k += 1;
+                continue;
+            }
+            while j < chars.len() && chars[j].is_ascii_digit() {
+                j += 1;
+            }
+            let digits: String = chars[k + 1..j].iter().collect();
+            if c == '^' {
+                out.push_str(&format!("^{{{digits}}}"));
+            } else {
+                out.push_str(&format!("{c}_{{{digits}}}"));
+            }
+            k = j;
+        } else {
+            out.push(c);
+            k += 1;
         }
     }
     out
@@ -278,7 +317,7 @@ fn latex(g: &PointGroup) -> String {
         "\\begin{{tabular}}{{l{}l}}\n\\toprule\n",
         "c".repeat(ncol - 2)
     ));
-    let mut h = vec![format!("${}$", latex_label(&t.name))];
+    let mut h = vec![format!("${}$", super::latex::group_math(&t.name))];
     h.extend(
         t.classes
             .iter()

@@ -70,6 +70,7 @@
 //! bond); `axial` det·trace (an infinitesimal-rotation triple).
 
 mod demo;
+mod keep;
 mod load;
 mod model;
 mod recovery;
@@ -85,5 +86,7 @@ pub use model::{
 pub use recovery::{
     demo_recovery_path, fallback_recovery_path, recovery_path, state_dir, Recovery,
 };
-pub use save::{check_save_target, save, write_atomic, SaveError, SaveTarget};
+pub use save::{
+    check_save_target, save, save_keeping, to_toml_keeping, write_atomic, SaveError, SaveTarget,
+};
 pub use write::to_toml;

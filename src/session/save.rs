@@ -2,7 +2,8 @@
 //! and is renamed over the old file, so a crash or a full disk never leaves half a session.
 //! Files that are not readable sessions are never written over.
 
-use super::load::load_file;
+use super::keep::edit_document;
+use super::load::{load_file, parse};
 use super::model::Session;
 use super::write::to_toml;
 use std::fs;
@@ -85,7 +86,32 @@ pub fn write_atomic(path: &Path, text: &str) -> Result<(), SaveError> {
     result.map_err(io)
 }
 
-/// Save a session to `path` atomically.
+/// The text of `session` as a file: `original` (the session file's text as the user wrote it)
+/// edited where the session differs from it, comments, order and spacing kept; the fresh
+/// layout when there is no original. When `original` already says exactly this session, it
+/// is returned unchanged.
+pub fn to_toml_keeping(original: Option<&str>, session: &Session) -> String {
+    let fresh = to_toml(session);
+    match original {
+        None => fresh,
+        Some(old) if parse("", old).as_ref() == Ok(session) => old.to_string(),
+        Some(old) => edit_document(old, &fresh),
+    }
+}
+
+/// Save a session to `path` atomically. When `path` holds a session already, that file is
+/// edited (its comments and layout kept, see [`to_toml_keeping`]); a file there that is not a
+/// readable session is never written over.
 pub fn save(session: &Session, path: &Path) -> Result<(), SaveError> {
-    write_atomic(path, &to_toml(session))
+    save_keeping(session, path, path)
+}
+
+/// Save as: write `session` to `path`, keeping the comments and layout of the session file
+/// `layout_from` (the file it was opened from; usually `path` itself).
+pub fn save_keeping(session: &Session, layout_from: &Path, path: &Path) -> Result<(), SaveError> {
+    check_save_target(path)?;
+    let original = fs::read_to_string(layout_from)
+        .ok()
+        .filter(|t| parse("", t).is_ok());
+    write_atomic(path, &to_toml_keeping(original.as_deref(), session))
 }

@@ -8,6 +8,27 @@ fn q(s: &str) -> String {
     toml::Value::String(s.to_string()).to_string()
 }
 
+/// A string as a multi-line basic string when it holds line breaks (notes stay readable in
+/// the file), else as [`q`].
+fn text(s: &str) -> String {
+    if !s.contains('\n') {
+        return q(s);
+    }
+    let mut o = String::from("\"\"\"\n");
+    for c in s.chars() {
+        match c {
+            '\\' => o.push_str("\\\\"),
+            '"' => o.push_str("\\\""),
+            '\n' | '\t' => o.push(c),
+            '\r' => o.push_str("\\r"),
+            c if c.is_control() => o.push_str(&format!("\\u{:04X}", c as u32)),
+            c => o.push(c),
+        }
+    }
+    o.push_str("\"\"\"");
+    o
+}
+
 /// A TOML key: bare when it can be, quoted otherwise.
 fn key(s: &str) -> String {
     if !s.is_empty()
@@ -37,7 +58,10 @@ fn list(items: &[String]) -> String {
     )
 }
 
-/// The session as TOML text (format [`FORMAT`]).
+/// The session as TOML text (format [`FORMAT`]), in the fresh layout. Every field of the model
+/// is written here and only here; saving over a file the user wrote edits that file into this
+/// text (`keep::edit_document`), so a new field or table needs its lines here and in the
+/// loader, nothing else.
 pub fn to_toml(s: &Session) -> String {
     let mut o = String::new();
     o.push_str(&format!("format = {FORMAT}\n"));
@@ -51,7 +75,7 @@ pub fn to_toml(s: &Session) -> String {
         o.push_str(&format!("orientation = {}\n", q(&s.orientation)));
     }
     if !s.notes.is_empty() {
-        o.push_str(&format!("notes = {}\n", q(&s.notes)));
+        o.push_str(&format!("notes = {}\n", text(&s.notes)));
     }
     if let Some(g) = &s.geometry {
         o.push_str("\n[geometry]\n");

@@ -71,23 +71,23 @@ fn orbits<T: Copy + Eq + std::hash::Hash + Ord>(
     out
 }
 
-/// Bonds grouped into symmetry-equivalent sets.
+/// Bonds grouped into symmetry-equivalent sets, labelled central atom first (`P–F`).
 pub fn bond_sets(
     bonds: &[(usize, usize)],
     perms: &[Vec<usize>],
     symbol: impl Fn(usize) -> String,
 ) -> Vec<BondSet> {
     let items: Vec<(usize, usize)> = bonds.iter().map(|&(a, b)| norm_pair(a, b)).collect();
+    let degree = |x: usize| items.iter().filter(|&&(a, b)| a == x || b == x).count();
     orbits(&items, |p, (a, b)| norm_pair(p[a], p[b]), perms)
         .into_iter()
         .map(|bonds| {
             let (a, b) = bonds[0];
-            let (sa, sb) = (symbol(a), symbol(b));
-            let label = if sa <= sb {
-                format!("{sa}–{sb}")
-            } else {
-                format!("{sb}–{sa}")
-            };
+            let label = crate::geom::formula::bond_label(
+                (&symbol(a), degree(a)),
+                (&symbol(b), degree(b)),
+                "–",
+            );
             BondSet { bonds, label }
         })
         .collect()

@@ -5,7 +5,6 @@ use super::action::{Action, Panel};
 use super::keymap::{self, Code, Key};
 use crate::analysis::{self, Analysis, Depth, GroupEntry};
 use crate::report::session as session_report;
-use crate::report::Format;
 use crate::session::{
     self, check_save_target, Member, MemberSet, Recovery, SaveTarget, Session, SetKind,
 };
@@ -945,11 +944,9 @@ impl App {
     }
 
     fn export_to(&mut self, p: &Path) {
-        let fmt = match p.extension().and_then(|e| e.to_str()).unwrap_or("") {
-            "tex" => Format::Latex,
-            "json" => Format::Json,
-            "txt" => Format::Text,
-            _ => Format::Markdown,
+        let fmt = match crate::report::export_format(None, Some(p)) {
+            Ok(f) => f,
+            Err(e) => return self.error(format!("report not written: {e}")),
         };
         let r = analysis::analyze_in(&self.session, Depth::Full, self.base_dir().as_deref());
         let text = session_report::render(&self.session, &r, fmt, self.ascii);
