@@ -181,10 +181,30 @@ pub fn render(name: &str, mol: &Molecule, s: &Survey, format: Format, ascii: boo
     }
     out.push_str(&item(&near_miss_line(s, ascii)));
     let r = &s.oriented.rotation;
+    // Four decimals, and no "-0.0000" for a value that rounds to zero.
+    let f = |v: f64| {
+        let t = format!("{v:.4}");
+        if t == "-0.0000" {
+            "0.0000".to_string()
+        } else {
+            t
+        }
+    };
+    let c = &s.oriented.centre;
     out.push_str(&item(&format!(
-        "standard orientation: rotation [{:.4} {:.4} {:.4}; {:.4} {:.4} {:.4}; {:.4} {:.4} {:.4}] about centre ({:.4}, {:.4}, {:.4})",
-        r[(0, 0)], r[(0, 1)], r[(0, 2)], r[(1, 0)], r[(1, 1)], r[(1, 2)], r[(2, 0)], r[(2, 1)], r[(2, 2)],
-        s.oriented.centre.x, s.oriented.centre.y, s.oriented.centre.z
+        "standard orientation: rotation [{} {} {}; {} {} {}; {} {} {}] about centre ({}, {}, {})",
+        f(r[(0, 0)]),
+        f(r[(0, 1)]),
+        f(r[(0, 2)]),
+        f(r[(1, 0)]),
+        f(r[(1, 1)]),
+        f(r[(1, 2)]),
+        f(r[(2, 0)]),
+        f(r[(2, 1)]),
+        f(r[(2, 2)]),
+        f(c.x),
+        f(c.y),
+        f(c.z)
     )));
     out.push_str(&h("unmoved atoms per class"));
     let w = &s.working;

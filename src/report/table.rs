@@ -263,50 +263,52 @@ pub fn latex_label(label: &str) -> String {
 }
 
 /// LaTeX math of a class symbol (ASCII spelling): `2C3` → `2C_{3}`, `C2'` → `C_{2}'`,
-/// `S4^3` → `S_{4}^{3}`, `3sv` → `3\sigma_{v}`, `sh` → `\sigma_{h}`, `S10` → `S_{10}`.
+/// `S4^3` → `S_{4}^{3}`, `3sv` → `3\sigma_{v}`, `S10` → `S_{10}`, `2Cinf^phi` →
+/// `2C_{\infty}^{\varphi}`, `infsv` → `\infty\sigma_{v}`.
 pub fn latex_class(ascii: &str) -> String {
     let chars: Vec<char> = ascii.chars().collect();
+    let at = |k: usize, w: &str| {
+        chars[k.min(chars.len())..]
+            .iter()
+            .collect::<String>()
+            .starts_with(w)
+    };
+    // A run of digits, `inf` or `phi` at k: its LaTeX and where it ends.
+    let script = |k: usize| -> Option<(String, usize)> {
+        if at(k, "inf") {
+            return Some(("\\infty".into(), k + 3));
+        }
+        if at(k, "phi") {
+            return Some(("\\varphi".into(), k + 3));
+        }
+        let mut j = k;
+        while j < chars.len() && chars[j].is_ascii_digit() {
+            j += 1;
+        }
+        (j > k).then(|| (chars[k..j].iter().collect(), j))
+    };
     let mut out = String::new();
     let mut k = 0;
     while k < chars.len() {
         let c = chars[k];
-        let rest: String = chars[k..].iter().collect();
         if c == 's' && matches!(chars.get(k + 1), Some('h' | 'v' | 'd')) {
             out.push_str(&format!("\\sigma_{{{}}}", chars[k + 1]));
             k += 2;
-        } else if rest.starts_with("inf") {
+        } else if let (true, Some((sub, end))) = (c == 'C' || c == 'S', script(k + 1)) {
+            out.push_str(&format!("{c}_{{{sub}}}"));
+            k = end;
+        } else if let (true, Some((sup, end))) = (c == '^', script(k + 1)) {
+            out.push_str(&format!("^{{{sup}}}"));
+            k = end;
+        } else if at(k, "inf") {
             out.push_str("\\infty ");
             k += 3;
-        } else if rest.starts_with("phi") {
-            out.push_str("\\varphi ");
-            k += 3;
-        } else if (c == 'C' || c == 'S' || c == '^')
-            && chars
-                .get(k + 1)
-                .is_some_and(|d| d.is_ascii_digit() || *d == 'i')
-        {
-            let mut j = k + 1;
-            if chars[j] == 'i' {
-                out.push(c);
-                k += 1;
-                continue;
-            }
-            while j < chars.len() && chars[j].is_ascii_digit() {
-                j += 1;
-            }
-            let digits: String = chars[k + 1..j].iter().collect();
-            if c == '^' {
-                out.push_str(&format!("^{{{digits}}}"));
-            } else {
-                out.push_str(&format!("{c}_{{{digits}}}"));
-            }
-            k = j;
         } else {
             out.push(c);
             k += 1;
         }
     }
-    out
+    out.replace("\\infty \\sigma", "\\infty\\sigma")
 }
 
 fn latex(g: &PointGroup) -> String {
