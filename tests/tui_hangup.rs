@@ -245,6 +245,7 @@ fn sigterm_while_idle_and_nothing_unsaved_ends_within_a_second() {
     assert!(exit.at.duration_since(t0) <= Duration::from_secs(1));
     assert_eq!(exit.code, Some(143));
     assert!(!c.rec.exists(), "nothing unsaved, no recovery file");
+    c.run.all_output(); // everything it wrote, read to the end
     assert!(
         c.run.text().contains("nothing was unsaved"),
         "{}",
@@ -316,6 +317,7 @@ fn a_rescue_that_cannot_be_written_is_said_and_does_not_panic() {
         .wait_exit(Duration::from_secs(1))
         .expect("gone within 1 s");
     assert_eq!(exit.code, Some(143));
+    run.all_output(); // everything it wrote, read to the end
     let text = run.text();
     assert!(text.contains("could NOT be written"), "{text}");
     assert!(!text.contains("panicked"), "{text}");
