@@ -51,4 +51,7 @@ pub use real::{
     real_irreps, to_real, to_rows, RealIrrep,
 };
 pub use subgroups::{conjugacy_classes, subgroups_of_order, OpSet};
-pub use symmetry::{combination, overtone, symmetry_of_real, symmetry_of_rows, SymTerm, Symmetry};
+pub use symmetry::{
+    combination, linear_product, overtone, symmetry_of_real, symmetry_of_rows, ProductKind,
+    SymTerm, Symmetry,
+};
