@@ -22,6 +22,7 @@ mod descent;
 mod embed;
 mod error;
 mod lambda;
+mod linear_embed;
 mod real;
 pub mod render;
 mod subgroups;

@@ -121,7 +121,13 @@ pub fn descent_markdown(r: &DescentReport) -> String {
     let mut s = String::new();
     for (k, e) in r.embeddings.iter().enumerate() {
         let _ = write!(s, "{} → {}", r.group, r.subgroup);
-        if r.embeddings.len() > 1 || !e.contains.is_empty() {
+        if let Some(d) = &e.description {
+            let _ = write!(s, "  (embedding {}: {d}", k + 1);
+            if !e.contains.is_empty() {
+                let _ = write!(s, "; contains {}", e.contains.join(", "));
+            }
+            s.push(')');
+        } else if r.embeddings.len() > 1 || !e.contains.is_empty() {
             let _ = write!(
                 s,
                 "  (embedding {}: contains {}",
