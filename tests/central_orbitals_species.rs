@@ -233,7 +233,7 @@ fn pi_frame_is_stated_for_every_ligand_in_every_group() {
             assert_eq!(frames.len(), ligands.len(), "{name} {site}");
             for (k, line) in frames.iter().enumerate() {
                 let nums: Vec<f64> = line
-                    .split(|ch: char| ch == '(' || ch == ')' || ch == ',')
+                    .split(['(', ')', ','])
                     .filter_map(|t| t.trim().parse::<f64>().ok())
                     .collect();
                 assert_eq!(nums.len(), 6, "{line}");

@@ -37,9 +37,9 @@ pub use check::{
     check_bands, BandCheck, BandVerdict, CheckOptions, Conflict, CountCheck, LevelMatch,
 };
 pub use combos::{
-    fundamentals_from_gamma, parse_fundamentals, predict_combinations, CombinationBand,
-    CombinationOptions, CombinationsReport, Fundamental, FundamentalsError, LevelKind,
-    ANHARMONIC_NOTE,
+    customary_ranks, fundamentals_from_gamma, parse_fundamentals, predict_combinations,
+    CombinationBand, CombinationOptions, CombinationsReport, Fundamental, FundamentalsError,
+    LevelKind, ANHARMONIC_NOTE, NUMBERING_NOTE,
 };
 pub use descent::{
     descend, descend_names, subgroup_types, ClassLink, CorrelationRow, DescentReport, Embedding,
