@@ -174,6 +174,35 @@ struct SiteFrame {
     /// (op index, D(op)) for the operations of the site group.
     action: Vec<(usize, [[Cyclo; 2]; 2])>,
     note: String,
+    /// The frame's a and b as unit vectors (for stating every ligand's frame).
+    a: nalgebra::Vector3<f64>,
+    b: nalgebra::Vector3<f64>,
+}
+
+fn unit_f(v: &Vec3) -> nalgebra::Vector3<f64> {
+    let f = float(v);
+    f / f.norm()
+}
+
+/// a, b for a site without a rotation axis: a in the mirror plane (⟂ the bond), b along the
+/// mirror's normal; without a mirror, a ⟂ the bond and a Cartesian axis, b = bond × a.
+fn loose_frame(
+    d: nalgebra::Vector3<f64>,
+    normal: Option<nalgebra::Vector3<f64>>,
+) -> [nalgebra::Vector3<f64>; 2] {
+    let u = d / d.norm();
+    let b = match normal {
+        Some(n) => n / n.norm(),
+        None => {
+            let e = [nalgebra::Vector3::z(), nalgebra::Vector3::x()]
+                .into_iter()
+                .find(|e| u.cross(e).norm() > 1e-6)
+                .unwrap_or_else(nalgebra::Vector3::y);
+            let a = u.cross(&e).normalize();
+            u.cross(&a).normalize()
+        }
+    };
+    [b.cross(&u).normalize(), b]
 }
 
 fn site_frame(s: &Structure, l0: usize, stab: &[usize]) -> Result<SiteFrame, BasisError> {
@@ -200,6 +229,7 @@ fn site_frame(s: &Structure, l0: usize, stab: &[usize]) -> Result<SiteFrame, Bas
                 )
             })
             .collect();
+        let [fa, fb] = loose_frame(d, mirror.map(|m| float(&mirror_normal(&g.ops[m].matrix))));
         let note = match mirror {
             Some(m) => format!(
                 "π frame on {label}: a in the mirror plane {}, b along its normal",
@@ -209,7 +239,12 @@ fn site_frame(s: &Structure, l0: usize, stab: &[usize]) -> Result<SiteFrame, Bas
                 format!("π frame on {label}: any two perpendicular directions (no site symmetry)")
             }
         };
-        return Ok(SiteFrame { action, note });
+        return Ok(SiteFrame {
+            action,
+            note,
+            a: fa,
+            b: fb,
+        });
     };
     let mut axis = rotation_axis(&g.ops[r].matrix);
     if float(&axis).dot(&d) < 0.0 {
@@ -258,7 +293,13 @@ fn site_frame(s: &Structure, l0: usize, stab: &[usize]) -> Result<SiteFrame, Bas
             (o, d2)
         })
         .collect();
-    Ok(SiteFrame { action, note })
+    let (fa, fb) = (unit_f(&frame[0]), unit_f(&frame[1]));
+    Ok(SiteFrame {
+        action,
+        note,
+        a: fa,
+        b: fb,
+    })
 }
 
 /// π pairs on `ligands` (two vectors ⟂ each centre–ligand bond): members `π1a π1b π2a …`.
@@ -284,6 +325,25 @@ pub fn pi(s: &Structure, centre: usize, ligands: &[usize]) -> Result<Basis, Basi
         let f = site_frame(s, ligands[r], &stab)?;
         notes.push(f.note.clone());
         frames[r] = Some(f);
+    }
+    // Every ligand's frame, carried from its orbit's representative (a_k = R·a_r), so each
+    // coefficient can be read against explicit directions.
+    for k in 0..n {
+        let f = frames[rep_of[k]].as_ref().expect("frame of representative");
+        let r = &g.ops[carrier[k]].float;
+        let (a, b) = (r * f.a, r * f.b);
+        let v = |x: nalgebra::Vector3<f64>| {
+            let c = |t: f64| if t.abs() < 5e-4 { 0.0 } else { t };
+            format!("({:.3}, {:.3}, {:.3})", c(x.x), c(x.y), c(x.z))
+        };
+        notes.push(format!(
+            "π frame on {} (π{}a, π{}b): a = {}, b = {}",
+            s.label(ligands[k]),
+            k + 1,
+            k + 1,
+            v(a),
+            v(b)
+        ));
     }
     let mut images = Vec::with_capacity(g.order());
     for o in 0..g.order() {

@@ -22,7 +22,10 @@ pub use cartesian::{
 };
 pub use internal::{all_angles, angle_sets, bends, bond_sets, stretches, Angle, SiteSet};
 pub use ligand::{default_ligands, pi, sigma};
-pub use orbitals::{irrep_of, orbital_character, real_orbitals, shells, Shell, LETTERS};
+pub use orbitals::{
+    central_orbitals, irrep_of, orbital_character, orbital_lambda, real_orbitals, shells, Shell,
+    LETTERS,
+};
 pub use pperp::p_perp;
 pub use redundancy::{b_matrix, redundancy, Redundancy};
 pub use structure::{orbits, Placed, Structure};

@@ -61,8 +61,85 @@ pub fn real_orbitals(l: usize) -> Vec<(&'static str, &'static str)> {
             ("fx(x2-3y2)", "x^3-3xy^2"),
             ("fy(3x2-y2)", "3x^2y-y^3"),
         ],
+        // Real solid harmonics of l = 4 (unnormalized): r⁴·Y₄ₘ for m = 0, ±1 … ±4, e.g.
+        // 35z⁴ − 30z²r² + 3r⁴ = 8z⁴ − 24(x²+y²)z² + 3(x²+y²)² (Tinkham, §5-4, from memory).
+        4 => vec![
+            ("gz4", "8z^4-24x^2z^2-24y^2z^2+3x^4+6x^2y^2+3y^4"),
+            ("gxz3", "4xz^3-3x^3z-3xy^2z"),
+            ("gyz3", "4yz^3-3x^2yz-3y^3z"),
+            ("gz2(x2-y2)", "6x^2z^2-6y^2z^2-x^4+y^4"),
+            ("gxyz2", "6xyz^2-x^3y-xy^3"),
+            ("gxz(x2-3y2)", "x^3z-3xy^2z"),
+            ("gyz(3x2-y2)", "3x^2yz-y^3z"),
+            ("g(x4-6x2y2+y4)", "x^4-6x^2y^2+y^4"),
+            ("gxy(x2-y2)", "x^3y-xy^3"),
+        ],
         _ => Vec::new(),
     }
+}
+
+/// |m| about z of a real orbital of [`real_orbitals`]: its species σ (0), π (1), δ (2), φ (3),
+/// γ (4) along a linear molecule's axis z. The listed orders follow m = 0, ±1, ±2 … in each
+/// shell (px, py: π; pz: σ).
+pub fn orbital_lambda(name: &str) -> Option<u32> {
+    (0..=4).find_map(|l| {
+        let list = real_orbitals(l);
+        let k = list.iter().position(|(n, _)| *n == name)?;
+        Some(if l == 1 {
+            [1, 1, 0][k]
+        } else {
+            k.div_ceil(2) as u32
+        })
+    })
+}
+
+/// The central-atom orbitals of shells s … `l_max` with the symmetry of one real irrep (first
+/// table row `row`, real dimension `dim`). Orbitals are named when the shell's part in the
+/// irrep is spanned by named real orbitals, otherwise `2×d`. `axial` = Some(Λ) for a linear
+/// molecule along z: only orbitals of that |m| (σ 0, π 1, …) are listed — the others have
+/// zero overlap with a ligand combination of species Λ however the finite subgroup labels
+/// them (Herzberg 1966, *Electronic Spectra*, ch. I; the D∞h table's functions).
+pub fn central_orbitals(
+    g: &PointGroup,
+    l_max: usize,
+    row: usize,
+    dim: usize,
+    axial: Option<u32>,
+) -> Vec<String> {
+    let mut central = Vec::new();
+    for sh in shells(g, l_max) {
+        let count = sh.multiplicities[row];
+        if count == 0 {
+            continue;
+        }
+        let named: Vec<String> = sh
+            .orbitals
+            .iter()
+            .filter(|(_, i)| *i == row)
+            .map(|(n, _)| n.clone())
+            .collect();
+        if let Some(lambda) = axial {
+            central.extend(
+                named
+                    .into_iter()
+                    .filter(|n| orbital_lambda(n) == Some(lambda)),
+            );
+            continue;
+        }
+        if named.len() as u64 == count * dim as u64 {
+            central.extend(named);
+        } else if named.is_empty() {
+            central.push(if count == 1 {
+                format!("{} (one set)", sh.letter)
+            } else {
+                format!("{count}×{}", sh.letter)
+            });
+        } else {
+            central.extend(named);
+            central.push(format!("more of {}", sh.letter));
+        }
+    }
+    central
 }
 
 /// One shell of the central atom.
@@ -78,7 +155,8 @@ pub struct Shell {
     pub orbitals: Vec<(String, usize)>,
 }
 
-/// Shells s … up to l_max (≤ 4) of a central atom at the origin of a finite group.
+/// Shells s … up to l_max (≤ 4) of a central atom at the origin of a finite group; real
+/// orbitals are named up to g.
 pub fn shells(g: &PointGroup, l_max: usize) -> Vec<Shell> {
     (0..=l_max.min(4))
         .map(|l| {
@@ -124,7 +202,9 @@ pub fn irrep_of(g: &PointGroup, f: &Poly) -> Option<usize> {
             }
         }
         let partner = ir.pair;
-        let dim = Cyclo::from_int(ir.dim() as i64 * if partner.is_some() { 2 } else { 1 });
+        // P = Σ_rows (d_row/h) Σ_R χ_row(R)* R; the two rows of a pair have d = 1 each, so
+        // the pair's projector is (1/h) Σ_R (χ₁ + χ₂)* R (Cotton, 3rd ed., eq. 8.2-1).
+        let dim = Cyclo::from_int(ir.dim() as i64);
         let mut acc = Poly::new();
         for (o, img) in images.iter().enumerate() {
             let c = g.ops[o].class;

@@ -41,6 +41,9 @@ pub struct SalcArgs {
     /// Geometry tolerance in Å.
     #[arg(long, default_value_t = 0.01)]
     pub tol: f64,
+    /// Central-atom shells matched with σ/π SALCs, e.g. s,p,d or s,p,d,f,g (up to g).
+    #[arg(long, default_value = "s,p,d,f")]
+    pub orbitals: String,
     /// Output format: text, md, latex, json.
     #[arg(long, short, default_value = "text", value_parser = parse_format)]
     pub format: Format,
@@ -273,7 +276,10 @@ pub fn salc(a: &SalcArgs, ascii: bool) -> CliResult {
         _ => None,
     };
     let central = if central {
-        salc::central_matches(&set)
+        let l_max = orbital_shells(&a.orbitals)?;
+        // Linear molecule (axis z): match by species along the axis, σ ligands Λ = 0, π Λ = 1.
+        let axial = s.is_linear_molecule().then_some(u32::from(kind == "pi"));
+        salc::central_orbital_matches(&set, l_max, axial)
     } else {
         Vec::new()
     };
@@ -309,4 +315,24 @@ fn rebuild_for_worked(s: &Structure, kind: &str) -> Result<Basis, CliError> {
             }
         }
     }
+}
+
+/// `s,p,d,f,g` → the highest l asked for (shells are listed from s up to it).
+fn orbital_shells(text: &str) -> Result<usize, CliError> {
+    text.split([',', ' '])
+        .map(str::trim)
+        .filter(|t| !t.is_empty())
+        .map(|t| {
+            basis::LETTERS
+                .iter()
+                .position(|c| t.len() == 1 && t.starts_with(*c))
+                .ok_or_else(|| {
+                    CliError::input(format!("--orbitals: unknown shell '{t}'"))
+                        .with_hint("use letters from s,p,d,f,g")
+                })
+        })
+        .try_fold(None, |m: Option<usize>, l| {
+            l.map(|l| Some(m.map_or(l, |m| m.max(l))))
+        })?
+        .ok_or_else(|| CliError::input("--orbitals: no shell given"))
 }

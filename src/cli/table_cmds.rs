@@ -188,15 +188,7 @@ pub struct ProductArgs {
 pub fn product(a: &ProductArgs, ascii: bool) -> CliResult {
     let g = load(&a.group)?;
     if g.is_linear() {
-        return Err(CliError::input(format!(
-            "products in {} are taken in its finite subgroup {}",
-            g.name(),
-            g.table.descent.clone().unwrap_or_default()
-        ))
-        .with_hint(format!(
-            "run the product in {} and correlate",
-            g.table.descent.clone().unwrap_or_default()
-        )));
+        return product_linear(&g, a, ascii);
     }
     let gamma = |t: &str| -> Result<Character, CliError> {
         let m = rep::parse_gamma(&g, t).map_err(CliError::input)?;
@@ -217,6 +209,66 @@ pub fn product(a: &ProductArgs, ascii: bool) -> CliResult {
     };
     let r = rep::reduce(&g, &chi);
     print!("{}", report::reduction::render(&g, &r, a.format, ascii));
+    Ok(())
+}
+
+/// Products in C∞v/D∞h by the species rules (Herzberg 1945, ch. II): no finite class list.
+fn product_linear(g: &PointGroup, a: &ProductArgs, ascii: bool) -> CliResult {
+    use crate::spectra::{self, ProductKind};
+    let real = |t: &str| -> Result<Vec<u64>, CliError> {
+        let rows = spectra::parse_gamma(g, t).map_err(|e| CliError::input(e.to_string()))?;
+        spectra::to_real(g, &rows).map_err(|e| CliError::input(e.to_string()))
+    };
+    let x = real(&a.first)?;
+    let (kind, y) = if a.sym {
+        (ProductKind::Symmetric, None)
+    } else if a.antisym {
+        (ProductKind::Antisymmetric, None)
+    } else if a.cube {
+        (ProductKind::Cube, None)
+    } else {
+        let second = a.second.as_ref().ok_or_else(|| {
+            CliError::input("give two representations, or one with --sym, --antisym or --cube")
+        })?;
+        (ProductKind::Direct, Some(real(second)?))
+    };
+    let s = spectra::linear_product(g, &x, y.as_deref(), kind)
+        .map_err(|e| CliError::input(e.to_string()))?;
+    let note = "species rules of the linear groups (Herzberg 1945, ch. II): Λ⊗Λ' = |Λ−Λ'| + \
+                (Λ+Λ'), Λ⊗Λ = Σ⁺ + Σ⁻ + (2Λ); g⊗g = u⊗u = g";
+    match a.format {
+        Format::Json => {
+            let v = serde_json::json!({
+                "group": g.name(),
+                "result": s,
+                "note": note,
+            });
+            println!("{}", serde_json::to_string_pretty(&v).unwrap_or_default());
+        }
+        _ => {
+            let text = if ascii {
+                s.text.clone()
+            } else {
+                s.terms
+                    .iter()
+                    .map(|t| rep::write_term(g, t.multiplicity, &group::display_label(&t.irrep)))
+                    .collect::<Vec<_>>()
+                    .join(" + ")
+            };
+            let line = format!(
+                "Γ = {}\n{note}\n",
+                if text.is_empty() { "0" } else { &text }
+            );
+            print!(
+                "{}",
+                if ascii {
+                    report::ascii_prose(&line)
+                } else {
+                    line
+                }
+            );
+        }
+    }
     Ok(())
 }
 

@@ -5,6 +5,7 @@
 //! irreps, plus the single-class changes of χ that would give a valid decomposition.
 
 use super::character::Character;
+use super::gamma_text::pair_label;
 use crate::exact::Cyclo;
 use crate::group::PointGroup;
 use num_traits::Signed;
@@ -203,7 +204,7 @@ pub fn format_sum(g: &PointGroup, m: &[u64], unicode: bool) -> String {
         } else {
             label
         };
-        parts.push(if *n == 1 { l } else { format!("{n}{l}") });
+        parts.push(super::gamma_text::write_term(g, *n, &l));
     }
     if parts.is_empty() {
         "0".into()
@@ -212,90 +213,11 @@ pub fn format_sum(g: &PointGroup, m: &[u64], unicode: bool) -> String {
     }
 }
 
-/// `1E1` → `E1`: the real label of a complex-conjugate pair.
-pub fn pair_label(label: &str) -> String {
-    label
-        .trim_start_matches(|c: char| c.is_ascii_digit())
-        .to_string()
-}
-
 /// Parse `A1 + 2E`, `T2`, `E'+A2''`, `Sigma+g + Piu` (ASCII or Unicode labels; `E` also names a
-/// 1E+2E pair) into multiplicities in table order. Labels are matched longest first, so `+`
-/// inside a label (Σ⁺) is not taken for a sum.
+/// 1E+2E pair) into multiplicities in table order; the rules for multiplicities are those of
+/// [`super::gamma_text`].
 pub fn parse_gamma(g: &PointGroup, text: &str) -> Result<Vec<u64>, String> {
-    let mut m = vec![0u64; g.table.irreps.len()];
-    // Every spelling → the irreps it stands for.
-    let mut names: Vec<(String, Vec<usize>)> = Vec::new();
-    for (i, ir) in g.table.irreps.iter().enumerate() {
-        names.push((ir.label.clone(), vec![i]));
-        names.push((ir.display(), vec![i]));
-        if let Some(p) = ir.pair {
-            let real = pair_label(&ir.label);
-            names.push((real.clone(), vec![i, p]));
-            names.push((crate::group::display_label(&real), vec![i, p]));
-        }
-    }
-    names.sort_by_key(|(n, _)| std::cmp::Reverse(n.chars().count()));
-    let chars: Vec<char> = text.replace('−', "-").chars().collect();
-    let mut pos = 0;
-    let mut terms = 0;
-    while pos < chars.len() {
-        if chars[pos].is_whitespace() || chars[pos] == '+' {
-            pos += 1;
-            continue;
-        }
-        let rest: String = chars[pos..].iter().collect();
-        // A label that itself starts with a digit (1E) wins over a count.
-        let matched = |s: &str| {
-            names
-                .iter()
-                .find(|(n, _)| {
-                    s.starts_with(n.as_str()) || s.to_lowercase().starts_with(&n.to_lowercase())
-                })
-                .cloned()
-        };
-        let (count, after) = match matched(&rest) {
-            Some(_) if !rest.starts_with(|c: char| c.is_ascii_digit()) => (1, rest.clone()),
-            _ => {
-                let digits: String = rest.chars().take_while(|c| c.is_ascii_digit()).collect();
-                let n = if digits.is_empty() {
-                    1
-                } else {
-                    digits
-                        .parse::<u64>()
-                        .map_err(|_| format!("bad count in '{text}'"))?
-                };
-                let after: String = rest.chars().skip(digits.chars().count()).collect();
-                // "1E" alone: prefer the label reading when the count reading fails.
-                if !digits.is_empty()
-                    && matched(after.trim_start()).is_none()
-                    && matched(&rest).is_some()
-                {
-                    (1, rest.clone())
-                } else {
-                    (n, after.trim_start().to_string())
-                }
-            }
-        };
-        let Some((name, idx)) = matched(&after) else {
-            let labels: Vec<&str> = g.table.irreps.iter().map(|i| i.label.as_str()).collect();
-            let word: String = after.chars().take_while(|c| !c.is_whitespace()).collect();
-            return Err(format!(
-                "'{word}' is not an irrep of {} ({})",
-                g.name(),
-                labels.join(", ")
-            ));
-        };
-        for i in idx {
-            m[i] += count;
-        }
-        terms += 1;
-        pos = chars.len() - after.chars().count() + name.chars().count();
-    }
-    if terms == 0 {
-        return Err("no irreps given".into());
-    }
-    Ok(m)
+    super::gamma_text::parse_gamma(g, text).map_err(|e| e.to_string())
 }
 
 /// One term of a decomposition as a chemist reads it: label, multiplicity, dimension. A

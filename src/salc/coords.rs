@@ -222,34 +222,5 @@ pub struct Matching {
 
 /// Central-atom orbitals (s, p, d, f) beside every irrep the ligand SALCs span.
 pub fn central_matches(set: &SalcSet) -> Vec<Matching> {
-    let g = &set.group;
-    let shells = basis::shells(g, 3);
-    let mut out = Vec::new();
-    for (x, ir) in set.irreps.iter().enumerate() {
-        if set.multiplicities[x] == 0 {
-            continue;
-        }
-        let mut central = Vec::new();
-        for sh in &shells {
-            let count = sh.multiplicities[ir.row];
-            if count == 0 {
-                continue;
-            }
-            let named: Vec<String> = sh
-                .orbitals
-                .iter()
-                .filter(|(_, i)| *i == ir.row)
-                .map(|(n, _)| n.clone())
-                .collect();
-            if named.len() as u64 == count * ir.dim as u64 {
-                central.extend(named);
-            } else if count == 1 {
-                central.push(format!("{} (one set)", sh.letter));
-            } else {
-                central.push(format!("{count}×{}", sh.letter));
-            }
-        }
-        out.push(Matching { irrep: x, central });
-    }
-    out
+    super::display::central_orbital_matches(set, 3, None)
 }

@@ -148,3 +148,22 @@ pub fn coefficient_strings(s: &Salc) -> Vec<String> {
         })
         .collect()
 }
+
+/// Central-atom orbitals of shells s … `l_max` beside every irrep the ligand SALCs span;
+/// `axial` = Some(Λ) for the ligands of a linear molecule (σ: 0, π: 1), so that only orbitals
+/// of the same species along the axis are listed (see `basis::central_orbitals`).
+pub fn central_orbital_matches(
+    set: &super::SalcSet,
+    l_max: usize,
+    axial: Option<u32>,
+) -> Vec<super::Matching> {
+    set.irreps
+        .iter()
+        .enumerate()
+        .filter(|(x, _)| set.multiplicities[*x] > 0)
+        .map(|(x, ir)| super::Matching {
+            irrep: x,
+            central: crate::basis::central_orbitals(&set.group, l_max, ir.row, ir.dim, axial),
+        })
+        .collect()
+}

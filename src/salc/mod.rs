@@ -21,7 +21,9 @@ pub use coords::{
     central_matches, exact_positions, internal_coordinates, nearby_fraction, symmetry_coordinates,
     Matching,
 };
-pub use display::{coefficient_strings, combination, member_name, norm_factor, salc_text};
+pub use display::{
+    central_orbital_matches, coefficient_strings, combination, member_name, norm_factor, salc_text,
+};
 pub use float::float_salcs;
 pub use irreps::{real_irreps, IrrepError, Matrix, MatrixSource, RealIrrep};
 pub use project::{inverses, partner_one_images, transfer, worked_projection, Worked, WorkedLine};

@@ -146,11 +146,7 @@ pub fn modes_report(g: &PointGroup, rows: &[u64]) -> Result<ModesReport, Spectra
         rep.raman_bands += if a.raman { n } else { 0 };
         rep.coincident_bands += if a.ir && a.raman { n } else { 0 };
         rep.silent_fundamentals += if a.silent() { n } else { 0 };
-        parts.push(if n == 1 {
-            a.irrep.clone()
-        } else {
-            format!("{n}{}", a.irrep)
-        });
+        parts.push(crate::rep::write_term(g, n, &a.irrep));
         rep.modes.push(ModeLine {
             irrep: a.irrep.clone(),
             multiplicity: n,

@@ -21,7 +21,7 @@ pub struct Fundamental {
     /// Observed or assigned wavenumber, cm⁻¹.
     #[serde(default)]
     pub position_cm: Option<f64>,
-    /// Name such as `ν3`; numbered in list order when absent.
+    /// Name such as `ν3`; numbered by [`customary_ranks`] when absent.
     #[serde(default)]
     pub name: Option<String>,
 }
@@ -77,6 +77,8 @@ pub struct CombinationsReport {
     /// Sorted by harmonic position when known, otherwise in list order.
     pub levels: Vec<CombinationBand>,
     pub note: String,
+    /// The convention by which unnamed fundamentals are numbered.
+    pub numbering: String,
 }
 
 /// The note printed with every prediction.
@@ -86,26 +88,67 @@ ch. II). Activity follows the symmetry of the level; such bands are usually weak
 enhanced by Fermi resonance.";
 
 /// One fundamental per degenerate set of Γ (per table row multiplicities), without positions,
-/// named ν1, ν2, … in table order.
+/// named ν1, ν2, … by [`customary_ranks`].
 pub fn fundamentals_from_gamma(
     g: &PointGroup,
     rows: &[u64],
 ) -> Result<Vec<Fundamental>, SpectraError> {
     let real = to_real(g, rows)?;
-    let mut out = Vec::new();
-    for (r, n) in real_irreps(g).iter().zip(real) {
-        for _ in 0..n {
-            out.push(Fundamental {
-                irrep: r.label.clone(),
-                position_cm: None,
-                name: Some(format!("ν{}", out.len() + 1)),
-            });
-        }
+    let reals = real_irreps(g);
+    let mut irreps = Vec::new();
+    for (i, n) in real.iter().enumerate() {
+        irreps.extend(std::iter::repeat_n(i, *n as usize));
     }
-    Ok(out)
+    let ranks = customary_ranks(g, &irreps, &vec![None; irreps.len()]);
+    let mut out: Vec<(usize, Fundamental)> = irreps
+        .iter()
+        .zip(ranks)
+        .map(|(&i, r)| {
+            (
+                r,
+                Fundamental {
+                    irrep: reals[i].label.clone(),
+                    position_cm: None,
+                    name: Some(format!("ν{}", r + 1)),
+                },
+            )
+        })
+        .collect();
+    out.sort_by_key(|(r, _)| *r);
+    Ok(out.into_iter().map(|(_, f)| f).collect())
 }
 
-/// Resolve fundamentals' irreps to real-irrep indices, with their names.
+/// How fundamentals without a name are numbered, stated with every prediction.
+pub const NUMBERING_NOTE: &str = "ν numbering: by symmetry species in the character table's \
+order, non-degenerate species before degenerate ones, and within a species by decreasing \
+wavenumber when positions are given (Mulliken 1955, as applied by Herzberg 1945); independent \
+of the order typed.";
+
+/// Customary rank (0-based) of each fundamental: (degenerate?, species in table order,
+/// decreasing position, unknown positions last, then typing order).
+pub fn customary_ranks(g: &PointGroup, irreps: &[usize], positions: &[Option<f64>]) -> Vec<usize> {
+    let reals = real_irreps(g);
+    let mut order: Vec<usize> = (0..irreps.len()).collect();
+    order.sort_by(|&a, &b| {
+        let key = |k: usize| (reals[irreps[k]].dim > 1, irreps[k]);
+        key(a)
+            .cmp(&key(b))
+            .then_with(|| match (positions[a], positions[b]) {
+                (Some(p), Some(q)) => q.total_cmp(&p),
+                (Some(_), None) => std::cmp::Ordering::Less,
+                (None, Some(_)) => std::cmp::Ordering::Greater,
+                (None, None) => a.cmp(&b),
+            })
+    });
+    let mut rank = vec![0; irreps.len()];
+    for (r, &k) in order.iter().enumerate() {
+        rank[k] = r;
+    }
+    rank
+}
+
+/// Resolve fundamentals' irreps to real-irrep indices, with their names (given, or νk by
+/// [`customary_ranks`]).
 pub(crate) fn resolve(
     g: &PointGroup,
     fundamentals: &[Fundamental],
@@ -125,12 +168,23 @@ pub(crate) fn resolve(
                     return Err(bad("position must be a positive number".into()));
                 }
             }
-            let i = real_index(g, &f.irrep)
+            let i = crate::rep::parse_irrep(g, &f.irrep)
+                .ok()
+                .and_then(|_| real_index(g, &f.irrep))
                 .ok_or_else(|| bad(format!("not an irrep of {}", g.name())))?;
-            let name = f.name.clone().unwrap_or_else(|| format!("ν{}", k + 1));
-            Ok((i, name))
+            Ok(i)
         })
-        .collect()
+        .collect::<Result<Vec<usize>, SpectraError>>()
+        .map(|irreps| {
+            let positions: Vec<Option<f64>> = fundamentals.iter().map(|f| f.position_cm).collect();
+            let ranks = customary_ranks(g, &irreps, &positions);
+            irreps
+                .iter()
+                .zip(fundamentals)
+                .zip(ranks)
+                .map(|((&i, f), r)| (i, f.name.clone().unwrap_or_else(|| format!("ν{}", r + 1))))
+                .collect()
+        })
 }
 
 /// Overtones 2ν (and 3ν) of every fundamental and all binary combinations νi + νj.
@@ -140,6 +194,21 @@ pub fn predict_combinations(
     opts: CombinationOptions,
 ) -> Result<CombinationsReport, SpectraError> {
     let resolved = resolve(g, fundamentals)?;
+    // List the fundamentals in their customary order (ν1, ν2, … when unnamed).
+    let irreps: Vec<usize> = resolved.iter().map(|(i, _)| *i).collect();
+    let positions: Vec<Option<f64>> = fundamentals.iter().map(|f| f.position_cm).collect();
+    let ranks = customary_ranks(g, &irreps, &positions);
+    let mut order: Vec<usize> = (0..fundamentals.len()).collect();
+    order.sort_by_key(|&k| ranks[k]);
+    let fundamentals: Vec<Fundamental> = order
+        .iter()
+        .map(|&k| Fundamental {
+            name: Some(resolved[k].1.clone()),
+            ..fundamentals[k].clone()
+        })
+        .collect();
+    let resolved: Vec<(usize, String)> = order.iter().map(|&k| resolved[k].clone()).collect();
+    let fundamentals = &fundamentals[..];
     let mut levels = Vec::new();
     let pos = |k: usize| fundamentals[k].position_cm;
     let mut push = |kind, label: String, of: Vec<usize>, symmetry: Symmetry| {
@@ -191,6 +260,7 @@ pub fn predict_combinations(
         fundamentals: fundamentals.to_vec(),
         levels,
         note: ANHARMONIC_NOTE.to_string(),
+        numbering: NUMBERING_NOTE.to_string(),
     })
 }
 

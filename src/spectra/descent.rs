@@ -18,7 +18,7 @@ use super::subgroups::{conjugacy_classes, signature, subgroups_of_order};
 use super::symmetry::{symmetry_of_rows, Symmetry};
 use crate::exact::Cyclo;
 use crate::group::{strip_count, OpSpec, PointGroup, Turn};
-use crate::rep::{decompose, restrictions, Character};
+use crate::rep::{decompose, Character};
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use serde::Serialize;
@@ -65,6 +65,12 @@ pub struct Embedding {
     pub modes: Vec<ModeSplit>,
     /// With a Γ: the full activity report in H.
     pub subgroup_modes: Option<ModesReport>,
+    /// Linear groups: the embedding in words (which axis of H lies along the molecular axis).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub description: Option<String>,
+    /// Linear groups: H's axis (x, y or z) that lies along the molecular axis.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub molecular_axis: Option<String>,
 }
 
 /// The correlation of G with H.
@@ -234,6 +240,8 @@ fn descend_finite(
             correlation,
             modes: Vec::new(),
             subgroup_modes: None,
+            description: None,
+            molecular_axis: None,
         });
     }
     if embeddings.is_empty() {
@@ -346,38 +354,26 @@ fn descend_linear(
                 .into(),
         });
     }
-    let g_reals = real_irreps(g);
-    let correlation: Vec<CorrelationRow> = if h.is_linear() {
-        linear_to_linear(g, h)?
-    } else {
-        // Only the standard subgroups with all operations diagonal (2-fold about x, y, z): the
-        // route `rep::restrictions` knows; in C∞v every operation must keep z.
-        let fits = h.ops.iter().all(|o| {
-            let m = &o.float;
-            let diagonal = (0..3).all(|i| (0..3).all(|j| i == j || m[(i, j)].abs() < 1e-9));
-            diagonal && (is_centrosymmetric(g) || m[(2, 2)] > 0.0)
-        });
-        if !fits {
+    if !h.is_linear() {
+        let embeddings = super::linear_embed::linear_embeddings(g, h)?;
+        if embeddings.is_empty() {
             return Err(not_sub(
                 g,
                 h,
-                "the linear groups descend to C1, Cs, Ci, C2, C2v, C2h, D2 and D2h (those that \
-                 fit with z along the molecular axis)",
+                if is_centrosymmetric(g) {
+                    "no placement of its operations keeps the molecular axis as a line"
+                } else {
+                    "no placement of its operations keeps the molecular axis and its direction"
+                },
             ));
         }
-        let rows = restrictions(g, h).map_err(|m| internal(g, &m))?;
-        g_reals
-            .iter()
-            .zip(rows)
-            .map(|(r, rows)| {
-                Ok(CorrelationRow {
-                    irrep: r.label.clone(),
-                    dimension: r.dim,
-                    becomes: symmetry_of_rows(h, &rows)?,
-                })
-            })
-            .collect::<Result<_, SpectraError>>()?
-    };
+        return Ok(DescentReport {
+            group: g.name().into(),
+            subgroup: h.name().into(),
+            embeddings,
+            note: LINEAR_NOTE.into(),
+        });
+    }
     Ok(DescentReport {
         group: g.name().into(),
         subgroup: h.name().into(),
@@ -385,15 +381,20 @@ fn descend_linear(
             conjugates: 1,
             contains: Vec::new(),
             class_map: Vec::new(),
-            correlation,
+            correlation: linear_to_linear(g, h)?,
             modes: Vec::new(),
             subgroup_modes: None,
+            description: None,
+            molecular_axis: None,
         }],
-        note: "The subgroup stands with z along the molecular axis; computed by restricting the \
-               characters."
-            .into(),
+        note: "Computed by comparing the characters of the two linear groups.".into(),
     })
 }
+
+const LINEAR_NOTE: &str = "Computed from the operations: each placement of the subgroup's \
+operations that keeps the molecular axis is classified (rotation by φ about the axis, σv \
+containing it, C2 across it, i, S(φ)) and every species restricted by its characters there \
+(2cos Λφ at rotations; Herzberg 1945, ch. II). Γ (Λ = 4) is added though the table stops at Φ.";
 
 /// D∞h → C∞v: C∞v's classes (E, C∞^φ, σv) are classes of D∞h (matched by kind of operation);
 /// compare characters exactly at several angles. (Also G → G.)

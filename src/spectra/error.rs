@@ -64,3 +64,34 @@ pub enum SpectraError {
     #[error("{group}: internal inconsistency: {message}")]
     Internal { group: String, message: String },
 }
+
+impl From<crate::rep::GammaTextError> for SpectraError {
+    fn from(e: crate::rep::GammaTextError) -> Self {
+        use crate::rep::GammaTextError as G;
+        match e {
+            G::Unknown {
+                group,
+                label,
+                column,
+                known,
+            } => SpectraError::UnknownIrrep {
+                group,
+                label,
+                column,
+                known,
+            },
+            G::Empty => SpectraError::BadTerm {
+                column: 1,
+                message: e.to_string(),
+            },
+            G::EmptyTerm { column } | G::BadCount { column, .. } | G::Ambiguous { column, .. } => {
+                let full = e.to_string();
+                let prefix = format!("column {column}: ");
+                SpectraError::BadTerm {
+                    column,
+                    message: full.strip_prefix(&prefix).unwrap_or(&full).to_string(),
+                }
+            }
+        }
+    }
+}

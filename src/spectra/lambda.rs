@@ -120,3 +120,13 @@ pub fn symmetric_power(a: Species, n: u32) -> Vec<Species> {
         ],
     }
 }
+
+/// Antisymmetric square {Γ²}: nothing for Σ±, Σ⁻ (g in D∞h) for Λ > 0, since
+/// (2cos Λφ)² − 2cos 2Λφ = 2 and the σᵥ character (0² − 1)/2 = −1.
+pub fn antisymmetric_square(a: Species) -> Vec<Species> {
+    if a.lambda == 0 {
+        Vec::new()
+    } else {
+        vec![Species::with(0, true, a.gerade.map(|_| true))]
+    }
+}

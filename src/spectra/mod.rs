@@ -22,6 +22,7 @@ mod descent;
 mod embed;
 mod error;
 mod lambda;
+mod linear_embed;
 mod real;
 pub mod render;
 mod subgroups;
@@ -36,9 +37,9 @@ pub use check::{
     check_bands, BandCheck, BandVerdict, CheckOptions, Conflict, CountCheck, LevelMatch,
 };
 pub use combos::{
-    fundamentals_from_gamma, parse_fundamentals, predict_combinations, CombinationBand,
-    CombinationOptions, CombinationsReport, Fundamental, FundamentalsError, LevelKind,
-    ANHARMONIC_NOTE,
+    customary_ranks, fundamentals_from_gamma, parse_fundamentals, predict_combinations,
+    CombinationBand, CombinationOptions, CombinationsReport, Fundamental, FundamentalsError,
+    LevelKind, ANHARMONIC_NOTE, NUMBERING_NOTE,
 };
 pub use descent::{
     descend, descend_names, subgroup_types, ClassLink, CorrelationRow, DescentReport, Embedding,
@@ -51,4 +52,7 @@ pub use real::{
     real_irreps, to_real, to_rows, RealIrrep,
 };
 pub use subgroups::{conjugacy_classes, subgroups_of_order, OpSet};
-pub use symmetry::{combination, overtone, symmetry_of_real, symmetry_of_rows, SymTerm, Symmetry};
+pub use symmetry::{
+    combination, linear_product, overtone, symmetry_of_real, symmetry_of_rows, ProductKind,
+    SymTerm, Symmetry,
+};

@@ -8,6 +8,7 @@
 use super::error::SpectraError;
 use crate::exact::Cyclo;
 use crate::group::{OpSpec, PointGroup};
+pub use crate::rep::ascii_label;
 use crate::rep::{pair_label, Character};
 
 /// One real irreducible representation: a table row, or a complex-conjugate pair of rows.
@@ -113,121 +114,19 @@ pub fn is_centrosymmetric(g: &PointGroup) -> bool {
         .any(|c| matches!(c.op, OpSpec::Inversion))
 }
 
-/// Unicode or loose spellings of a label in the tables' ASCII: `Σg⁺`, `Σ+g`, `Sigmag+` →
-/// `Sigma+g`; `A₁′` → `A1'`; `E″` → `E''`.
-pub fn ascii_label(label: &str) -> String {
-    let mut s = String::new();
-    for c in label.trim().chars() {
-        match c {
-            'Σ' => s.push_str("Sigma"),
-            'Π' => s.push_str("Pi"),
-            'Δ' => s.push_str("Delta"),
-            'Φ' => s.push_str("Phi"),
-            'Γ' => s.push_str("Gamma"),
-            '⁺' => s.push('+'),
-            '⁻' | '−' => s.push('-'),
-            '′' => s.push('\''),
-            '″' => s.push_str("''"),
-            '₀'..='₉' => {
-                s.push(char::from_u32(c as u32 - '₀' as u32 + '0' as u32).unwrap_or(c))
-            }
-            '¹' => s.push('1'),
-            '²' => s.push('2'),
-            _ => s.push(c),
-        }
-    }
-    // Sigma: the sign goes right after the name (`Sigmag+` → `Sigma+g`).
-    if let Some(rest) = s.strip_prefix("Sigma") {
-        let sign: String = rest.chars().filter(|c| *c == '+' || *c == '-').collect();
-        let other: String = rest.chars().filter(|c| *c != '+' && *c != '-').collect();
-        s = format!("Sigma{sign}{other}");
-    }
-    s
-}
-
 /// Index of a real irrep by label: ASCII or Unicode, a pair by its real label (`E`) or by
 /// either row (`1E`).
 pub fn real_index(g: &PointGroup, label: &str) -> Option<usize> {
-    let reals = real_irreps(g);
-    let ascii = ascii_label(label);
-    let l = ascii.as_str();
-    let by_real = |eq: &dyn Fn(&str) -> bool| reals.iter().position(|r| eq(&r.label));
-    by_real(&|x| x == l)
-        .or_else(|| by_real(&|x| crate::group::display_label(x) == l))
-        .or_else(|| {
-            let row = g.table.irrep_index(l)?;
-            reals.iter().position(|r| r.rows.contains(&row))
-        })
-        .or_else(|| {
-            let row = g.table.irrep_index(label.trim())?;
-            reals.iter().position(|r| r.rows.contains(&row))
-        })
-        .or_else(|| by_real(&|x| x.eq_ignore_ascii_case(l)))
+    let rows = crate::rep::label_rows(g, label)?;
+    real_irreps(g)
+        .iter()
+        .position(|r| r.rows.contains(&rows[0]))
 }
 
-/// Read a Γ written as `A1 + E + 2T2`, `2A1' + 3E'`, `Sigma+g + Piu`; multiplicities per
-/// table row (a pair label `E` counts once on each of its rows). A `+` directly after
-/// `Sigma`/`Σ` belongs to the label; `2E` means two E, not the row `2E`.
+/// Read a Γ written as `A1 + E + 2T2`, `2A1' + 3E'`, `Sigma+g + Piu`, `2 E`, `3*T2`;
+/// multiplicities per table row (a pair label `E` counts once on each of its rows). The shared
+/// rules of `rep::gamma_text`: `1E`, `2E` are the rows of a pair; a glued count that could
+/// be read two ways is an error.
 pub fn parse_gamma(g: &PointGroup, text: &str) -> Result<Vec<u64>, SpectraError> {
-    let reals = real_irreps(g);
-    let mut m = vec![0u64; reals.len()];
-    let chars: Vec<char> = text.chars().collect();
-    let mut terms: Vec<(usize, String)> = Vec::new();
-    let mut start = 0;
-    let mut cur = String::new();
-    for (k, &c) in chars.iter().enumerate() {
-        let sigma_sign = c == '+'
-            && ["Sigma", "Sigmag", "Sigmau", "Σ", "Σg", "Σu"]
-                .iter()
-                .any(|s| cur.ends_with(s));
-        if c == '+' && !sigma_sign {
-            terms.push((start, std::mem::take(&mut cur)));
-            start = k + 1;
-        } else {
-            cur.push(c);
-        }
-    }
-    terms.push((start, cur));
-    for (col, raw) in terms {
-        let lead = raw.len() - raw.trim_start().len();
-        let column = col + raw[..lead].chars().count() + 1;
-        let t = raw.trim();
-        if t.is_empty() {
-            return Err(SpectraError::BadTerm {
-                column,
-                message: "empty term (expected e.g. 2A1)".into(),
-            });
-        }
-        let digits: String = t.chars().take_while(|c| c.is_ascii_digit()).collect();
-        let mut label = t[digits.len()..].trim();
-        let mut count: u64 = if digits.is_empty() {
-            1
-        } else {
-            digits.parse().map_err(|_| SpectraError::BadTerm {
-                column,
-                message: format!("multiplicity '{digits}' is too large"),
-            })?
-        };
-        // `1E`, `2E` are row labels of a pair, not a count.
-        let mut idx = real_index(g, label);
-        if idx.is_none() && !digits.is_empty() {
-            if let Some(i) = real_index(g, t) {
-                idx = Some(i);
-                count = 1;
-                label = t;
-            }
-        }
-        let i = idx.ok_or_else(|| SpectraError::UnknownIrrep {
-            group: g.name().into(),
-            label: label.to_string(),
-            column,
-            known: reals
-                .iter()
-                .map(|r| r.label.as_str())
-                .collect::<Vec<_>>()
-                .join(" "),
-        })?;
-        m[i] += count;
-    }
-    Ok(to_rows(g, &m))
+    crate::rep::gamma_text::parse_gamma(g, text).map_err(SpectraError::from)
 }

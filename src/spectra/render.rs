@@ -56,6 +56,15 @@ pub fn modes_markdown(r: &ModesReport) -> String {
 /// Overtone and combination list.
 pub fn combinations_markdown(r: &CombinationsReport) -> String {
     let mut s = String::new();
+    let funds: Vec<String> = r
+        .fundamentals
+        .iter()
+        .map(|f| {
+            let pos = f.position_cm.map(|p| format!(" {p}")).unwrap_or_default();
+            format!("{} = {}{pos}", f.name.as_deref().unwrap_or("?"), f.irrep)
+        })
+        .collect();
+    let _ = writeln!(s, "Fundamentals: {}\n", funds.join(", "));
     let _ = writeln!(s, "| level | harmonic / cm⁻¹ | symmetry | IR | Raman |");
     let _ = writeln!(s, "|---|---|---|---|---|");
     for l in &r.levels {
@@ -74,7 +83,7 @@ pub fn combinations_markdown(r: &CombinationsReport) -> String {
             }
         );
     }
-    let _ = writeln!(s, "\n{}", r.note);
+    let _ = writeln!(s, "\n{}\n{}", r.note, r.numbering);
     s
 }
 
@@ -121,7 +130,13 @@ pub fn descent_markdown(r: &DescentReport) -> String {
     let mut s = String::new();
     for (k, e) in r.embeddings.iter().enumerate() {
         let _ = write!(s, "{} → {}", r.group, r.subgroup);
-        if r.embeddings.len() > 1 || !e.contains.is_empty() {
+        if let Some(d) = &e.description {
+            let _ = write!(s, "  (embedding {}: {d}", k + 1);
+            if !e.contains.is_empty() {
+                let _ = write!(s, "; contains {}", e.contains.join(", "));
+            }
+            s.push(')');
+        } else if r.embeddings.len() > 1 || !e.contains.is_empty() {
             let _ = write!(
                 s,
                 "  (embedding {}: contains {}",

@@ -53,16 +53,13 @@ impl Symmetry {
             .sum()
     }
 
-    fn from_terms(terms: Vec<SymTerm>) -> Symmetry {
+    fn from_terms(g: &PointGroup, terms: Vec<SymTerm>) -> Symmetry {
         let text = if terms.is_empty() {
             "0".to_string()
         } else {
             terms
                 .iter()
-                .map(|t| match t.multiplicity {
-                    1 => t.irrep.clone(),
-                    n => format!("{n}{}", t.irrep),
-                })
+                .map(|t| crate::rep::write_term(g, t.multiplicity, &t.irrep))
                 .collect::<Vec<_>>()
                 .join(" + ")
         };
@@ -85,7 +82,7 @@ pub fn symmetry_of_real(g: &PointGroup, real: &[u64]) -> Symmetry {
             raman: a.raman,
         })
         .collect();
-    Symmetry::from_terms(terms)
+    Symmetry::from_terms(g, terms)
 }
 
 /// Γ given per table row, as a [`Symmetry`].
@@ -186,5 +183,81 @@ fn linear_symmetry(g: &PointGroup, list: Vec<Species>) -> Symmetry {
             .position(|a| a.irrep == t.irrep)
             .unwrap_or(usize::MAX)
     });
-    Symmetry::from_terms(terms)
+    Symmetry::from_terms(g, terms)
+}
+
+/// Which product [`linear_product`] takes.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum ProductKind {
+    /// Γa ⊗ Γb.
+    Direct,
+    /// Symmetric square [Γ²].
+    Symmetric,
+    /// Antisymmetric square {Γ²}.
+    Antisymmetric,
+    /// Symmetric cube [Γ³] (a single species only).
+    Cube,
+}
+
+/// Products of Γs of C∞v or D∞h given per real irrep (table order), by the species rules of
+/// `lambda` (Herzberg 1945, ch. II): Γ⊗Γ' term by term; [(Σ mᵢΓᵢ)²] = Σ mᵢ[Γᵢ²] +
+/// Σ C(mᵢ,2) Γᵢ⊗Γᵢ + Σ_{i<j} mᵢmⱼ Γᵢ⊗Γⱼ, and the same with {Γᵢ²} for the antisymmetric square
+/// ({Λ²} = Σ⁻ for Λ > 0, nothing for Σ).
+pub fn linear_product(
+    g: &PointGroup,
+    a: &[u64],
+    b: Option<&[u64]>,
+    kind: ProductKind,
+) -> Result<Symmetry, SpectraError> {
+    let list = |m: &[u64]| -> Result<Vec<(Species, u64)>, SpectraError> {
+        m.iter()
+            .enumerate()
+            .filter(|(_, n)| **n > 0)
+            .map(|(i, n)| Ok((species(g, i)?, *n)))
+            .collect()
+    };
+    let xs = list(a)?;
+    let mut out: Vec<Species> = Vec::new();
+    let mut add = |v: Vec<Species>, times: u64| {
+        for _ in 0..times {
+            out.extend(v.iter().copied());
+        }
+    };
+    match kind {
+        ProductKind::Direct => {
+            let ys = list(b.ok_or_else(|| SpectraError::Unsupported {
+                group: g.name().into(),
+                message: "a direct product needs two representations".into(),
+            })?)?;
+            for (sa, ma) in &xs {
+                for (sb, mb) in &ys {
+                    add(lambda::product(*sa, *sb), ma * mb);
+                }
+            }
+        }
+        ProductKind::Symmetric | ProductKind::Antisymmetric => {
+            for (k, (s, m)) in xs.iter().enumerate() {
+                let own = if kind == ProductKind::Symmetric {
+                    lambda::symmetric_power(*s, 2)
+                } else {
+                    lambda::antisymmetric_square(*s)
+                };
+                add(own, *m);
+                add(lambda::product(*s, *s), m * (m - 1) / 2);
+                for (t, n) in &xs[k + 1..] {
+                    add(lambda::product(*s, *t), m * n);
+                }
+            }
+        }
+        ProductKind::Cube => match xs.as_slice() {
+            [(s, 1)] => add(lambda::symmetric_power(*s, 3), 1),
+            _ => {
+                return Err(SpectraError::Unsupported {
+                    group: g.name().into(),
+                    message: "the symmetric cube is provided for a single species".into(),
+                })
+            }
+        },
+    }
+    Ok(linear_symmetry(g, out))
 }
