@@ -346,8 +346,19 @@ impl Cyclo {
             return self.scale_rat(&other.coeffs[0]);
         }
         let m = self.common(other);
-        let a = self.lift_rat(m);
-        let b = other.lift_rat(m);
+        let (la, lb);
+        let a: &[Rat] = if self.n == m {
+            &self.coeffs
+        } else {
+            la = self.lift_rat(m);
+            &la
+        };
+        let b: &[Rat] = if other.n == m {
+            &other.coeffs
+        } else {
+            lb = other.lift_rat(m);
+            &lb
+        };
         let mut dense = vec![Rat::ZERO; a.len() + b.len()];
         for (i, x) in a.iter().enumerate() {
             if x.is_zero() {
@@ -360,6 +371,24 @@ impl Cyclo {
             }
         }
         Self::from_dense_rat(dense, m)
+    }
+
+    /// The rational r with self = r·other, if there is one (other ≠ 0). In the power basis of
+    /// one field the representation is unique, so this is proportionality of coefficient
+    /// vectors — no inverse needed.
+    pub fn rational_ratio(&self, other: &Self) -> Option<BigRational> {
+        if self.is_zero() {
+            return Some(BigRational::zero());
+        }
+        let m = self.common(other);
+        let a = self.lift_rat(m);
+        let b = other.lift_rat(m);
+        let k = b.iter().position(|c| !c.is_zero())?;
+        let r = &a[k] * &b[k].recip();
+        a.iter()
+            .zip(&b)
+            .all(|(x, y)| *x == y * &r)
+            .then(|| r.to_big())
     }
 
     /// Multiply by a rational.

@@ -45,11 +45,33 @@ fn cache() -> &'static Mutex<HashMap<u32, Arc<Vec<i64>>>> {
     CACHE.get_or_init(|| Mutex::new(HashMap::new()))
 }
 
+/// Φₙ for small n without a lock: arithmetic reduces modulo Φₙ on every product, so the
+/// lookup must be cheap (a shared table filled once per n).
+const SMALL: usize = 512;
+fn small() -> &'static [OnceLock<Arc<Vec<i64>>>] {
+    static T: OnceLock<Vec<OnceLock<Arc<Vec<i64>>>>> = OnceLock::new();
+    T.get_or_init(|| (0..SMALL).map(|_| OnceLock::new()).collect())
+}
+
 /// Coefficients of Φₙ, lowest degree first (monic, integer, length φ(n)+1).
 pub fn cyclotomic(n: u32) -> Arc<Vec<i64>> {
+    if (n as usize) < SMALL {
+        return small()[n as usize]
+            .get_or_init(|| compute_cyclotomic(n))
+            .clone();
+    }
     if let Some(p) = cache().lock().expect("cyclotomic cache").get(&n) {
         return p.clone();
     }
+    let arc = compute_cyclotomic(n);
+    cache()
+        .lock()
+        .expect("cyclotomic cache")
+        .insert(n, arc.clone());
+    arc
+}
+
+fn compute_cyclotomic(n: u32) -> Arc<Vec<i64>> {
     // Start from xⁿ − 1 and divide by Φ_d for every proper divisor d.
     let mut num: Vec<i64> = vec![0; n as usize + 1];
     num[0] = -1;
@@ -60,12 +82,7 @@ pub fn cyclotomic(n: u32) -> Arc<Vec<i64>> {
             num = divide_exact(&num, &phi_d);
         }
     }
-    let arc = Arc::new(num);
-    cache()
-        .lock()
-        .expect("cyclotomic cache")
-        .insert(n, arc.clone());
-    arc
+    Arc::new(num)
 }
 
 /// Exact division of integer polynomials by a monic divisor (remainder must be zero).
@@ -105,9 +122,13 @@ pub fn reduce(mut coeffs: Vec<Rat>, n: u32) -> Vec<Rat> {
         }
         let c = std::mem::replace(&mut coeffs[top], Rat::ZERO);
         let shift = top - deg;
+        let neg = -&c;
         for (j, pj) in phi.iter().enumerate().take(deg) {
-            if *pj != 0 {
-                coeffs[shift + j] = &coeffs[shift + j] - &(&c * &Rat::int(*pj));
+            match *pj {
+                0 => {}
+                1 => coeffs[shift + j] = &coeffs[shift + j] + &neg,
+                -1 => coeffs[shift + j] = &coeffs[shift + j] + &c,
+                p => coeffs[shift + j] = &coeffs[shift + j] - &(&c * &Rat::int(p)),
             }
         }
     }

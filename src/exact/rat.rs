@@ -24,6 +24,28 @@ fn gcd_u128(mut a: u128, mut b: u128) -> u128 {
     a
 }
 
+/// Binary (Stein) gcd.
+fn gcd_u64(mut a: u64, mut b: u64) -> u64 {
+    if a == 0 {
+        return b;
+    }
+    if b == 0 {
+        return a;
+    }
+    let shift = (a | b).trailing_zeros();
+    a >>= a.trailing_zeros();
+    loop {
+        b >>= b.trailing_zeros();
+        if a > b {
+            std::mem::swap(&mut a, &mut b);
+        }
+        b -= a;
+        if b == 0 {
+            return a << shift;
+        }
+    }
+}
+
 impl Rat {
     pub const ZERO: Rat = Rat::S(0, 1);
     pub fn int(i: i64) -> Rat {
@@ -32,6 +54,15 @@ impl Rat {
     /// n/d from 128-bit parts (d ≠ 0), reduced; big when it does not fit.
     fn from_i128(n: i128, d: i128) -> Rat {
         let (n, d) = if d < 0 { (-n, -d) } else { (n, d) };
+        // The common case: both parts fit 64 bits, where a binary gcd is far cheaper than
+        // 128-bit division.
+        if let (Ok(nu), Ok(du)) = (u64::try_from(n.unsigned_abs()), u64::try_from(d)) {
+            let g = gcd_u64(nu, du).max(1);
+            let (nu, du) = (nu / g, du / g);
+            if let (Ok(a), Ok(b)) = (i64::try_from(nu), i64::try_from(du)) {
+                return Rat::S(if n < 0 { -a } else { a }, b);
+            }
+        }
         let g = gcd_u128(n.unsigned_abs(), d as u128).max(1) as i128;
         let (n, d) = (n / g, d / g);
         match (i64::try_from(n), i64::try_from(d)) {
@@ -141,8 +172,16 @@ impl Mul for &Rat {
                         return Rat::S(p, 1);
                     }
                 }
-                // (a·c)/(b·d) in 128 bits always fits.
-                Rat::from_i128(*a as i128 * *c as i128, *b as i128 * *d as i128)
+                // Cross-cancel first (gcd(a, d), gcd(c, b)): the result is then already in
+                // lowest terms and usually fits 64 bits without a 128-bit gcd.
+                let g1 = gcd_u64(a.unsigned_abs(), *d as u64).max(1) as i128;
+                let g2 = gcd_u64(c.unsigned_abs(), *b as u64).max(1) as i128;
+                let (a, b, c, d) = (*a as i128, *b as i128, *c as i128, *d as i128);
+                let (n, m) = ((a / g1) * (c / g2), (b / g2) * (d / g1));
+                match (i64::try_from(n), i64::try_from(m)) {
+                    (Ok(x), Ok(y)) => Rat::S(x, y),
+                    _ => Rat::from_i128(n, m),
+                }
             }
             _ => Rat::from_big(self.to_big() * o.to_big()),
         }

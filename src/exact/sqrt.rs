@@ -34,6 +34,14 @@ pub fn sqrt_rational(q: &BigRational) -> Result<Cyclo, SqrtError> {
     // √(a/b) = √(ab)/b
     let ab = q.numer() * q.denom();
     let (square, free) = split_square(&ab).ok_or_else(|| SqrtError::TooLarge(q.to_string()))?;
+    // The root lives in Q(ζ_c) for the conductor c = m or 4m of the square-free part m; every
+    // prime may be small while their product is huge (2·3·5·7·11·13·… ): refuse before
+    // building Gauss sums in an enormous field.
+    let m: u64 = free.iter().map(|&p| p as u64).product();
+    let conductor = if m % 4 == 1 { m } else { 4 * m };
+    if m > 1 && conductor > MAX_SQRT_FIELD as u64 {
+        return Err(SqrtError::TooLarge(q.to_string()));
+    }
     let mut root = Cyclo::from_rational(BigRational::new(square, q.denom().clone()));
     for p in free {
         root = root * sqrt_prime(p);
@@ -145,7 +153,11 @@ pub fn sqrt(x: &Cyclo) -> Result<Cyclo, SqrtError> {
     if let Some(r) = irrational_cache().lock().expect("sqrt cache").get(&key) {
         return r.clone();
     }
-    let r = search_sqrt(x);
+    let r = if kummer_refutes(x) {
+        Err(SqrtError::NotCyclotomic(format!("{x:?}")))
+    } else {
+        search_sqrt(x)
+    };
     irrational_cache()
         .lock()
         .expect("sqrt cache")
@@ -158,6 +170,43 @@ type SqrtCache = std::collections::HashMap<(u32, Vec<BigRational>), Result<Cyclo
 fn irrational_cache() -> &'static std::sync::Mutex<SqrtCache> {
     static CACHE: std::sync::OnceLock<std::sync::Mutex<SqrtCache>> = std::sync::OnceLock::new();
     CACHE.get_or_init(|| std::sync::Mutex::new(SqrtCache::new()))
+}
+
+/// A cheap exact proof that √x is not cyclotomic, where one exists.
+///
+/// Let x lie in K = Q(ζₙ). If √x lay in some cyclotomic field, L = K(√x) would be abelian, hence
+/// normal, over Q; then for every automorphism σ of K, √σ(x) ∈ L, and writing √σ(x) = a + b√x
+/// (a, b ∈ K) shows σ(x) or σ(x)/x is a square in K — in both cases x·σ(x) is a square in K
+/// (Kummer theory; Lang, *Algebra*, VI §8). When x·σ(x) is rational, that square root is √r
+/// whose smallest field Q(ζ_c) is known from r alone, so the test is: c must divide n.
+/// Example: x = 3 + √2, σ: √2 ↦ −√2, x·σ(x) = 7, √7 needs Q(ζ₂₈) ⊄ Q(ζ₈): no cyclotomic root.
+fn kummer_refutes(x: &Cyclo) -> bool {
+    let n = x.field_order();
+    if n <= 2 {
+        return false;
+    }
+    // Q(ζₙ) = Q(ζ₂ₙ) for odd n.
+    let n_full = if n % 2 == 1 { 2 * n as u64 } else { n as u64 };
+    for k in 2..n as i64 {
+        if super::poly::gcd(k as u64, n as u64) != 1 {
+            continue;
+        }
+        let z = x * &x.galois(k);
+        let Some(r) = z.to_rational() else { continue };
+        // a negative r adds i = ζ₄ to the root's field
+        let need = sqrt_conductor(&r).map(|c| {
+            if r.is_negative() {
+                super::poly::lcm(c as u32, 4) as u64
+            } else {
+                c
+            }
+        });
+        match need {
+            Some(c) if n_full % c != 0 => return true,
+            _ => {}
+        }
+    }
+    false
 }
 
 fn search_sqrt(x: &Cyclo) -> Result<Cyclo, SqrtError> {

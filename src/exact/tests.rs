@@ -187,3 +187,29 @@ fn typed_numbers_stay_in_fields_we_can_print() {
         );
     }
 }
+
+#[test]
+fn nested_roots_without_cyclotomic_value_are_refused_by_proof() {
+    // 3 ± √2 multiply to 7 and √7 ∉ Q(ζ₈), so √(3+√2) is not cyclotomic (Kummer theory,
+    // Lang, Algebra, VI §8); likewise (1+√5)·(1−√5) = −4 is no square in Q(ζ₅) (needs i).
+    for s in [
+        "sqrt(3+sqrt(2))",
+        "sqrt(1+sqrt(5))",
+        "sqrt(5+sqrt(3))",
+        "sqrt(2+sqrt(7))",
+    ] {
+        assert!(parse(s).is_err(), "{s} has no cyclotomic value");
+    }
+    // The nested roots that are cyclotomic still come out (textbook values of cos and sin).
+    assert_eq!(p("sqrt(2+sqrt(2))"), p("2cos(pi/8)"));
+    assert_eq!(p("sqrt(10+2sqrt(5))"), p("4sin(2pi/5)"));
+    assert_eq!(p("sqrt((5+sqrt(5))/2)"), p("2sin(2pi/5)"));
+}
+
+#[test]
+fn square_roots_of_many_small_primes_are_refused_quickly() {
+    // 2·3·5·7·11·13 = 30030: each prime is small, the field of the root is not.
+    let q = num_rational::BigRational::from_integer(30030.into());
+    assert!(matches!(sqrt_rational(&q), Err(SqrtError::TooLarge(_))));
+    assert!(sqrt_rational(&num_rational::BigRational::from_integer(36.into())).is_ok());
+}

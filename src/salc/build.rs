@@ -352,9 +352,11 @@ fn tidy_tuple(t: Vec<Vec<Cyclo>>) -> Vec<Vec<Cyclo>> {
 pub fn display_form(v: Vec<Cyclo>) -> (Vec<Cyclo>, Cyclo) {
     let w = match v.iter().find(|c| !c.is_zero()) {
         Some(f) => {
-            let finv = f.inv().expect("nonzero");
-            let ratios: Vec<Cyclo> = v.iter().map(|c| c * &finv).collect();
-            if ratios.iter().all(Cyclo::is_rational) {
+            let ratios: Option<Vec<Cyclo>> = v
+                .iter()
+                .map(|c| c.rational_ratio(f).map(Cyclo::from_rational))
+                .collect();
+            if let Some(ratios) = ratios {
                 let sign = f.signum_real();
                 let w = tidy(ratios);
                 if sign < 0 {

@@ -29,6 +29,9 @@ pub enum MatrixSource {
     Functions(String),
     /// A single irreducible copy inside the regular representation.
     Regular,
+    /// A complex-conjugate pair of one-dimensional irreps: χ(R) = a + bi acts on the plane as
+    /// the rotation [[a, −b], [b, a]].
+    ComplexPair,
 }
 
 impl MatrixSource {
@@ -38,6 +41,10 @@ impl MatrixSource {
             MatrixSource::Functions(t) => format!("partners transform like {t}"),
             MatrixSource::Regular => {
                 "partners from an irreducible copy in the regular representation (no function listed)"
+                    .into()
+            }
+            MatrixSource::ComplexPair => {
+                "partners are the real and imaginary parts of the complex pair (no function listed)"
                     .into()
             }
         }
@@ -173,7 +180,11 @@ fn build(g: &PointGroup, row: usize, built: &[RealIrrep]) -> Result<RealIrrep, I
         if let Some(mats) = from_tuple(g, t, &chars) {
             let (mats, norms) = {
                 let b = invariant_form_from(&mats);
-                orthogonalize(mats, &b)
+                // the new basis's matrices on the generators, the rest by products
+                let gens = &generation(g).0;
+                let gen_mats: Vec<Matrix> = gens.iter().map(|&o| mats[o].clone()).collect();
+                let (new, norms) = orthogonalize(gen_mats, &b);
+                (extend_from_generators(g, gens, new), norms)
             };
             return Ok(mk(mats, norms, MatrixSource::Functions(t.text.clone())));
         }
@@ -187,6 +198,9 @@ fn build(g: &PointGroup, row: usize, built: &[RealIrrep]) -> Result<RealIrrep, I
             MatrixSource::Functions(format!("{from} (times a one-dimensional irrep)")),
         ));
     }
+    if let Some(mats) = from_complex_pair(g, row) {
+        return Ok(mk(mats, vec![Cyclo::one(); 2], MatrixSource::ComplexPair));
+    }
     if let Some((mats, norms)) = from_regular(g, &chars, dim) {
         return Ok(mk(mats, norms, MatrixSource::Regular));
     }
@@ -194,6 +208,28 @@ fn build(g: &PointGroup, row: usize, built: &[RealIrrep]) -> Result<RealIrrep, I
         group: g.name().into(),
         irrep: label,
     })
+}
+
+/// A pair ¹E/²E of one-dimensional complex irreps as one real irrep: with χ(R) = a + bi on the
+/// first row, R ↦ [[a, −b], [b, a]] is multiplication by χ(R) on C = R² (a homomorphism because
+/// χ is), orthogonal because |χ(R)| = 1, and of trace 2a = χ + χ̄ (Serre, *Linear Representations
+/// of Finite Groups*, §13.2, real representations of complex type).
+fn from_complex_pair(g: &PointGroup, row: usize) -> Option<Vec<Matrix>> {
+    let ir = &g.table.irreps[row];
+    ir.pair?;
+    if ir.dim() != 1 {
+        return None;
+    }
+    Some(
+        g.ops
+            .iter()
+            .map(|op| {
+                let c = &ir.chars[op.class];
+                let (a, b) = (c.re(), c.im());
+                vec![vec![a.clone(), -&b], vec![b, a]]
+            })
+            .collect(),
+    )
 }
 
 /// Matrices of `row` as (one-dimensional irrep L) × (an already built irrep Y from functions).
@@ -210,8 +246,7 @@ fn from_product_with_1d(
         }
         let lchars = real_chars(g, l);
         for y in built {
-            if y.row == row || y.pair.is_some() || y.dim != chars[0].to_i64().unwrap_or(0) as usize
-            {
+            if y.row == row || y.dim != chars[0].to_i64().unwrap_or(0) as usize {
                 continue;
             }
             let MatrixSource::Functions(text) = &y.source else {
@@ -237,9 +272,114 @@ fn from_product_with_1d(
     None
 }
 
-/// Matrices of a tuple, if they have the irrep's character.
+/// A generating set of the group and, for every operation, how to reach it: `steps[k] =
+/// (o, s, p)` with ops[o] = ops[s]·ops[p], s a generator and p reached before (breadth-first
+/// from the identity, operation 0).
+/// Generators and the breadth-first steps that reach every operation from them.
+type Generation = (Vec<usize>, Vec<(usize, usize, usize)>);
+
+fn generation(g: &PointGroup) -> Arc<Generation> {
+    type Steps = Arc<Generation>;
+    static C: OnceLock<Mutex<HashMap<String, Steps>>> = OnceLock::new();
+    let c = C.get_or_init(|| Mutex::new(HashMap::new()));
+    if let Some(v) = c.lock().expect("generation cache").get(g.name()) {
+        return v.clone();
+    }
+    let v = Arc::new(compute_generation(g));
+    c.lock()
+        .expect("generation cache")
+        .insert(g.name().to_string(), v.clone());
+    v
+}
+
+fn compute_generation(g: &PointGroup) -> Generation {
+    let h = g.order();
+    let close = |gens: &[usize]| -> Vec<(usize, usize, usize)> {
+        let mut seen = vec![false; h];
+        seen[0] = true;
+        let mut queue = vec![0usize];
+        let mut steps = Vec::with_capacity(h);
+        let mut k = 0;
+        while k < queue.len() {
+            let x = queue[k];
+            k += 1;
+            for &s in gens {
+                let y = g.product(s, x);
+                if !seen[y] {
+                    seen[y] = true;
+                    queue.push(y);
+                    steps.push((y, s, x));
+                }
+            }
+        }
+        steps
+    };
+    let mut gens: Vec<usize> = Vec::new();
+    let mut steps = Vec::new();
+    for o in 1..h {
+        if steps.len() + 1 == h {
+            break;
+        }
+        if !steps.iter().any(|&(y, _, _)| y == o) {
+            gens.push(o);
+            steps = close(&gens);
+        }
+    }
+    (gens, steps)
+}
+
+fn mat_mul(a: &Matrix, b: &Matrix) -> Matrix {
+    let d = a.len();
+    (0..d)
+        .map(|i| {
+            (0..d)
+                .map(|j| {
+                    let mut s = Cyclo::zero();
+                    for k in 0..d {
+                        if !a[i][k].is_zero() && !b[k][j].is_zero() {
+                            s += &(&a[i][k] * &b[k][j]);
+                        }
+                    }
+                    s
+                })
+                .collect()
+        })
+        .collect()
+}
+
+/// Matrices of every operation from those of the generators (D(s·p) = D(s)·D(p)).
+fn extend_from_generators(g: &PointGroup, gens: &[usize], gen_mats: Vec<Matrix>) -> Vec<Matrix> {
+    let gen_steps = generation(g);
+    let steps = &gen_steps.1;
+    let d = gen_mats[0].len();
+    let identity: Matrix = (0..d)
+        .map(|i| (0..d).map(|j| Cyclo::from_int((i == j) as i64)).collect())
+        .collect();
+    let mut mats: Vec<Option<Matrix>> = vec![None; g.order()];
+    mats[0] = Some(identity);
+    for (&o, m) in gens.iter().zip(gen_mats) {
+        mats[o] = Some(m);
+    }
+    for &(o, s, p) in steps {
+        if mats[o].is_none() {
+            let m = mat_mul(
+                mats[s].as_ref().expect("generator"),
+                mats[p].as_ref().expect("reached before"),
+            );
+            mats[o] = Some(m);
+        }
+    }
+    mats.into_iter()
+        .map(|m| m.expect("generators reach every operation"))
+        .collect()
+}
+
+/// Matrices of a tuple, if they have the irrep's character. Only the generators' matrices are
+/// read from the functions; the rest are their products (the tuple's action is a homomorphism).
 fn from_tuple(g: &PointGroup, t: &FunctionTuple, chars: &[Cyclo]) -> Option<Vec<Matrix>> {
-    let mats = crate::group::tuple_matrices(g.ops.iter().map(|o| &o.matrix), t)?;
+    let gens = &generation(g).0;
+    let gen_mats = crate::group::tuple_matrices(gens.iter().map(|&o| &g.ops[o].matrix), t)?;
+    let mats = extend_from_generators(g, gens, gen_mats);
     for (o, m) in mats.iter().enumerate() {
         let tr: Cyclo = (0..m.len()).map(|i| m[i][i].clone()).sum();
         if tr != chars[o] || m.iter().flatten().any(|x| !x.is_real()) {
