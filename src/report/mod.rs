@@ -8,6 +8,7 @@ pub mod reduction;
 pub mod session;
 pub mod survey;
 pub mod table;
+pub mod vibrations;
 
 /// Output format of a rendering.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]

@@ -13,6 +13,7 @@ mod action;
 mod assign;
 mod constants;
 mod error;
+mod files;
 mod input;
 mod isotopes;
 mod isotopes_impl;
@@ -25,6 +26,7 @@ pub use action::{Action, FloatIrrep};
 pub use assign::{assign_bands, AssignOptions, Assignment};
 pub use constants::{to_hartree_per_bohr2, wavenumber_cm, HessianUnits};
 pub use error::VibError;
+pub use files::load;
 pub use input::{
     looks_like_json, read_qcschema, read_text_hessian, HessianInput, ASYMMETRY_TOLERANCE, MAX_ATOMS,
 };

@@ -49,15 +49,19 @@ pub fn external_modes(positions: &[Vector3<f64>], masses: &[f64]) -> Vec<DVector
         }
         raw.push(v);
     }
+    // a rotation about the axis of a (nearly) linear molecule is no external mode
+    let largest = raw[3..].iter().map(|v| v.norm()).fold(0.0, f64::max);
+    raw.retain(|v| v.norm() > 1e-5 * largest);
     orthonormal(raw, 1e-6)
 }
 
-/// Gram–Schmidt (twice) keeping vectors whose remainder exceeds `rel` of their length.
+/// Gram–Schmidt (twice) keeping vectors whose remainder exceeds `rel` of their length;
+/// vectors shorter than 1e-9 are taken as zero (use on vectors of order one).
 pub fn orthonormal(vs: Vec<DVector<f64>>, rel: f64) -> Vec<DVector<f64>> {
     let mut out: Vec<DVector<f64>> = Vec::new();
     for mut v in vs {
         let before = v.norm();
-        if before == 0.0 {
+        if before < 1e-9 {
             continue;
         }
         for _ in 0..2 {
