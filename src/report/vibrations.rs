@@ -278,3 +278,24 @@ pub fn json(nm: &NormalModes, bands: &[Assignment], scale: Option<f64>) -> Value
     }
     v
 }
+
+/// The session report's section: the table of the session's `[vibrations]` Hessian, or why
+/// there is none (empty when the session names no Hessian).
+pub fn session_section(a: &crate::analysis::Analysis, markdown: bool, ascii: bool) -> String {
+    match &a.vibrations {
+        None => String::new(),
+        Some(Err(e)) => format!("\nNormal modes: {e}\n"),
+        Some(Ok(v)) => format!(
+            "\n{}",
+            render(&v.modes, &v.assignments, v.scale, markdown, ascii)
+        ),
+    }
+}
+
+/// The session report's JSON member `vibrations` (None when the session names no Hessian).
+pub fn session_json(a: &crate::analysis::Analysis) -> Option<Value> {
+    a.vibrations.as_ref().map(|r| match r {
+        Err(e) => json!({ "error": e }),
+        Ok(v) => json(&v.modes, &v.assignments, v.scale),
+    })
+}

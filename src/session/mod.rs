@@ -74,13 +74,14 @@ mod load;
 mod model;
 mod recovery;
 mod save;
+mod vib_section;
 mod write;
 
 pub use demo::{demo, DEMO_NAME};
 pub use load::{load_file, parse, LoadError};
 pub use model::{
     Atom, Band, Geometry, GeometrySource, Member, MemberSet, Polarization, Session, SetKind,
-    Technique, FORMAT,
+    Technique, Vibrations, FORMAT,
 };
 pub use recovery::{demo_recovery_path, recovery_path, Recovery};
 pub use save::{check_save_target, save, write_atomic, SaveError, SaveTarget};
