@@ -21,3 +21,4 @@ pub mod spectra;
 pub mod survey;
 #[cfg(feature = "tui")]
 pub mod tui;
+pub mod vib;

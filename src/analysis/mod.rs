@@ -15,6 +15,7 @@ mod layers;
 mod set;
 mod spectra;
 mod ticks;
+pub mod vibrations;
 
 pub use catalogue::{catalogue, fit, GroupEntry};
 pub use classes::{class_label, resolve_class};
@@ -23,6 +24,7 @@ pub use layers::{LayerStatus, Layers};
 pub use set::{Outcome, SetAnalysis};
 pub use spectra::{observed_bands, predict, SpectraAnalysis};
 pub use ticks::GeometryTicks;
+pub use vibrations::VibrationAnalysis;
 
 use crate::group::{self, PointGroup};
 use crate::session::Session;
@@ -54,6 +56,8 @@ pub struct Analysis {
     /// Activity, band counts, overtones/combinations and the band check of the session's
     /// Γvib (from the geometry, else the first Cartesian set); full depth only.
     pub spectra: Option<Arc<SpectraAnalysis>>,
+    /// The normal modes of the session's `[vibrations]` Hessian.
+    pub vibrations: Option<Result<Arc<vibrations::VibrationAnalysis>, String>>,
 }
 
 impl Analysis {
@@ -94,6 +98,7 @@ pub fn analyze_to(session: &Session, depth: Depth) -> Result<Analysis, Error> {
 /// Analyse a session to the given depth, reading a relative XYZ path from `base`.
 pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Result<Analysis, Error> {
     let geometry = geometry::analyze_geometry(session, base, depth == Depth::Full);
+    let vibrations = vibrations::analyze(session, base);
     let mut notes = Vec::new();
     let g = match session.group.as_deref() {
         Some(name) => group::load(name).map_err(|e| Error::Group(e.to_string()))?,
@@ -111,7 +116,18 @@ pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Resul
                     "no point group chosen, and the geometry that would give one could not be used: {e}"
                 )))
             }
-            None => return Err(Error::NoGroup),
+            // nor a geometry: the Hessian's geometry offers its group
+            None => match &vibrations {
+                Some(Ok(v)) => {
+                    notes.push(format!(
+                        "no group chosen: using the Hessian's geometry's {}",
+                        v.modes.parent.point_group
+                    ));
+                    group::load(&v.modes.parent.point_group)
+                        .map_err(|e| Error::Group(e.to_string()))?
+                }
+                _ => return Err(Error::NoGroup),
+            },
         },
     };
     let sets: Vec<SetAnalysis> = session
@@ -151,6 +167,7 @@ pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Resul
         geometry,
         notes,
         spectra,
+        vibrations,
     })
 }
 

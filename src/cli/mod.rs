@@ -8,6 +8,7 @@ mod molecule_cmds;
 mod session_cmds;
 mod spectra_cmds;
 mod table_cmds;
+mod vib_cmds;
 
 use clap::{Parser, Subcommand};
 
@@ -86,6 +87,8 @@ pub enum Command {
     Salc(molecule_cmds::SalcArgs),
     /// Build a what-if molecule from a group's sites; write it as XYZ or as a new session.
     Build(build_cmds::BuildArgs),
+    /// Normal modes of a frequency job's Hessian: wavenumbers, irreps, activity, isotopologues.
+    NormalModes(vib_cmds::NormalModesArgs),
 }
 
 /// Run a parsed command line (everything but the terminal workspace).
@@ -108,6 +111,7 @@ pub fn run(cli: &Cli) -> CliResult {
         Some(Command::Descend(a)) => spectra_cmds::descend(a, ascii),
         Some(Command::Salc(a)) => molecule_cmds::salc(a, ascii),
         Some(Command::Build(a)) => build_cmds::build(a),
+        Some(Command::NormalModes(a)) => vib_cmds::normal_modes(a, ascii),
         None => session_cmds::workspace(None, ascii, false),
     }
 }

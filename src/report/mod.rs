@@ -10,6 +10,7 @@ pub mod session;
 pub mod spectra;
 pub mod survey;
 pub mod table;
+pub mod vibrations;
 
 /// Output format of a rendering.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]

@@ -214,6 +214,7 @@ fn text(s: &Session, a: &Result<Analysis, Error>, ascii: bool) -> String {
         }
     }
     o.push_str(&super::molecule::render(a, Format::Text, ascii));
+    o.push_str(&super::vibrations::session_section(a, false, ascii));
     for (name, m) in missing(a) {
         o.push_str(&format!("\n{name}: {m}.\n"));
     }
@@ -279,6 +280,7 @@ fn markdown(s: &Session, a: &Result<Analysis, Error>, ascii: bool) -> String {
         ));
     }
     o.push_str(&super::molecule::render(a, Format::Markdown, ascii));
+    o.push_str(&super::vibrations::session_section(a, true, ascii));
     for (name, m) in missing(a) {
         o.push_str(&format!("\n## {name}\n\n{m}.\n"));
     }
@@ -519,6 +521,9 @@ fn to_json(s: &Session, a: &Result<Analysis, Error>) -> Value {
                 })
                 .collect();
             out["sets"] = json!(sets);
+            if let Some(v) = super::vibrations::session_json(a) {
+                out["vibrations"] = v;
+            }
             if let Value::Object(extra) = super::molecule::to_json(a) {
                 for (k, v) in extra {
                     out[k.as_str()] = v;

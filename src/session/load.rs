@@ -35,6 +35,28 @@ struct RawSession {
     sets: Vec<RawSet>,
     #[serde(default, rename = "band")]
     bands: Vec<RawBand>,
+    #[serde(default)]
+    vibrations: Option<Spanned<RawVibrations>>,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+pub(super) struct RawVibrations {
+    pub hessian: String,
+    #[serde(default)]
+    pub units: Option<Spanned<String>>,
+    #[serde(default)]
+    pub geometry: Option<String>,
+    #[serde(default)]
+    pub isotopes: Vec<Spanned<String>>,
+    #[serde(default)]
+    pub scale: Option<Spanned<Num>>,
+    #[serde(default)]
+    pub band_tolerance: Option<Spanned<Num>>,
+    #[serde(default)]
+    pub symmetrize: bool,
+    #[serde(default)]
+    pub average_masses: bool,
 }
 
 #[derive(Deserialize)]
@@ -61,13 +83,13 @@ struct RawAtom {
 
 #[derive(Deserialize, Clone, Copy)]
 #[serde(untagged)]
-enum Num {
+pub(super) enum Num {
     I(i64),
     F(f64),
 }
 
 impl Num {
-    fn get(self) -> f64 {
+    pub(super) fn get(self) -> f64 {
         match self {
             Num::I(i) => i as f64,
             Num::F(f) => f,
@@ -225,6 +247,10 @@ pub fn parse(file: &str, text: &str) -> Result<Session, LoadError> {
     for b in &raw.bands {
         bands.push(band(b, &at)?);
     }
+    let vibrations = match &raw.vibrations {
+        None => None,
+        Some(v) => Some(super::vib_section::vibrations(v, &at)?),
+    };
     Ok(Session {
         title: raw.title,
         group,
@@ -233,10 +259,11 @@ pub fn parse(file: &str, text: &str) -> Result<Session, LoadError> {
         sets,
         bands,
         notes: raw.notes,
+        vibrations,
     })
 }
 
-type At<'a> = dyn Fn(usize, String) -> LoadError + 'a;
+pub(super) type At<'a> = dyn Fn(usize, String) -> LoadError + 'a;
 
 fn geometry(g: &Spanned<RawGeometry>, at: &At) -> Result<Geometry, LoadError> {
     let raw = g.get_ref();

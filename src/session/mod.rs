@@ -75,13 +75,14 @@ mod load;
 mod model;
 mod recovery;
 mod save;
+mod vib_section;
 mod write;
 
 pub use demo::{demo, DEMO_NAME};
 pub use load::{load_file, parse, LoadError};
 pub use model::{
     Atom, Band, Geometry, GeometrySource, Member, MemberSet, Polarization, Session, SetKind,
-    Technique, FORMAT,
+    Technique, Vibrations, FORMAT,
 };
 pub use recovery::{
     demo_recovery_path, fallback_recovery_path, recovery_path, state_dir, Recovery,

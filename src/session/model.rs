@@ -15,6 +15,29 @@ pub struct Session {
     pub sets: Vec<MemberSet>,
     pub bands: Vec<Band>,
     pub notes: String,
+    /// `[vibrations]`: a frequency job's Hessian to label.
+    pub vibrations: Option<Vibrations>,
+}
+
+/// `[vibrations]`: where the Hessian is and how to treat it.
+#[derive(Debug, Clone, PartialEq, Default)]
+pub struct Vibrations {
+    /// QCSchema JSON result, or a plain-text Hessian (relative to the session file).
+    pub hessian: String,
+    /// Units of a plain-text Hessian (`hartree/bohr2`, `mdyn/angstrom`, …).
+    pub units: Option<String>,
+    /// XYZ geometry of a plain-text Hessian (default: the `[geometry]` file).
+    pub geometry: Option<String>,
+    /// Isotopologue replacements (`H=D`, `3=2H`, `Cl=37Cl`).
+    pub isotopes: Vec<String>,
+    /// Uniform scale factor for band assignment.
+    pub scale: Option<f64>,
+    /// Assignment tolerance, cm⁻¹.
+    pub band_tolerance: Option<f64>,
+    /// Average the Hessian over the group's operations.
+    pub symmetrize: bool,
+    /// Standard atomic weights instead of the most abundant isotopes.
+    pub average_masses: bool,
 }
 
 /// Where the atoms come from, and the tolerance for symmetry detection.

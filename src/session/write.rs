@@ -151,5 +151,8 @@ pub fn to_toml(s: &Session) -> String {
             o.push_str(&format!("note = {}\n", q(&b.note)));
         }
     }
+    if let Some(v) = &s.vibrations {
+        o.push_str(&super::vib_section::to_toml(v, q, num));
+    }
     o
 }

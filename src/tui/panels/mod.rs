@@ -7,6 +7,7 @@ pub mod members;
 pub mod molecule;
 pub mod representation;
 pub mod spectra;
+pub mod vibrations;
 
 use super::text::ascii_fold;
 use super::theme::Theme;
