@@ -91,6 +91,8 @@ pub enum Action {
     NextIrrep,
     /// Replace the current set's ticks with the geometry's (members that name their atoms).
     TakeGeometryTicks,
+    /// Show the focused pane alone, or all panes again (tiled screens).
+    Zoom,
     /// Leave a dialog, search or overlay.
     Cancel,
     /// A character typed into a text field.

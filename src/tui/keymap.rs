@@ -258,6 +258,13 @@ pub const BINDINGS: &[Binding] = &[
         "next panel",
     ),
     b(
+        &[Key::ch('z')],
+        Everywhere,
+        Action::Zoom,
+        Some("zoom"),
+        "show the focused pane alone, or all panes again (screens from 120x32 tile)",
+    ),
+    b(
         &[Key::plain(BackTab)],
         Everywhere,
         Action::PrevPanel,
@@ -425,8 +432,13 @@ pub const BINDINGS: &[Binding] = &[
 pub const FIELD_KEYS: &[(&str, &str)] = &[
     ("letters, digits", "type into a search or name field"),
     ("Backspace", "delete the last character"),
+    ("Ctrl-u", "clear the whole field or search"),
     ("Enter", "accept the field"),
     ("Esc", "leave the field unchanged"),
+    (
+        "j/k g/G PgUp/PgDn",
+        "in this help: scroll (any other key closes it)",
+    ),
     (
         "y / n",
         "answer a question (other letters are named in the question)",
