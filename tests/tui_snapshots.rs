@@ -63,6 +63,8 @@ fn every_panel_at_both_sizes_in_both_modes() {
                     if ascii { "ascii" } else { "unicode" }
                 );
                 let s = screen(&mut a, w, h);
+                // A cut is an ellipsis, never a tilde (which reads as "approximately").
+                assert!(!s.contains('~'), "{name} marks a cut with ~:\n{s}");
                 if ascii {
                     assert!(s.is_ascii(), "{name} has non-ASCII text:\n{s}");
                 }

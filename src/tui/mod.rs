@@ -210,3 +210,26 @@ fn event_loop(
         }
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::limited_terminal;
+
+    /// Terminal types by what they lack (common practice: terminfo's dumb and vt100 entries
+    /// have no colour; the Linux console font has no subscripts or box glyphs beyond its own).
+    #[test]
+    fn limited_terminals_get_ascii_and_the_dumb_ones_no_colour() {
+        for (t, want) in [
+            ("dumb", (true, true)),
+            ("vt100", (true, true)),
+            ("vt102", (true, true)),
+            ("linux", (false, true)),
+            ("xterm-256color", (false, false)),
+            ("screen", (false, false)),
+            ("tmux-256color", (false, false)),
+            ("", (false, false)),
+        ] {
+            assert_eq!(limited_terminal(t), want, "{t}");
+        }
+    }
+}
