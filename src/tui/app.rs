@@ -27,6 +27,13 @@ pub enum FieldPurpose {
     AddBonds,
     RemoveBonds,
     Sites,
+    AddBand,
+    RemoveBandWhich,
+    ChangeBandWhich,
+    /// The band with this index, retyped.
+    ChangeBand(usize),
+    Title,
+    Orientation,
 }
 
 /// A one-line text field at the bottom of the screen.
@@ -532,6 +539,11 @@ impl App {
             Action::AddBond => self.bond_prompt(true),
             Action::RemoveBond => self.bond_prompt(false),
             Action::BuildSites => self.sites_prompt(),
+            Action::AddBand => self.add_band_prompt(),
+            Action::RemoveBand => self.band_number_prompt(FieldPurpose::RemoveBandWhich, "Remove"),
+            Action::ChangeBand => self.band_number_prompt(FieldPurpose::ChangeBandWhich, "Change"),
+            Action::EditTitle => self.title_prompt(),
+            Action::EditOrientation => self.orientation_prompt(),
             Action::NextGenerator => self.next_generator(),
             Action::NextIrrep => self.next_irrep(),
             Action::Char(_) | Action::Backspace => {}
@@ -938,6 +950,12 @@ impl App {
             FieldPurpose::AddBonds => self.bonds_done(true, &text),
             FieldPurpose::RemoveBonds => self.bonds_done(false, &text),
             FieldPurpose::Sites => self.sites_done(&text),
+            p @ (FieldPurpose::AddBand
+            | FieldPurpose::RemoveBandWhich
+            | FieldPurpose::ChangeBandWhich
+            | FieldPurpose::ChangeBand(_)
+            | FieldPurpose::Title
+            | FieldPurpose::Orientation) => self.band_field_done(p, &text),
         }
     }
 

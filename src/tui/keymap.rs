@@ -235,6 +235,28 @@ pub const BINDINGS: &[Binding] = &[
         Some("build"),
         "build the molecule from the group's sites (replaces the geometry; u undoes)",
     ),
+    // Spectra
+    b(
+        &[Key::ch('+')],
+        In(Panel::Spectra),
+        Action::AddBand,
+        Some("add band"),
+        "add an observed band: position technique [intensity] [p|dp] [note]",
+    ),
+    b(
+        &[Key::ch('c')],
+        In(Panel::Spectra),
+        Action::ChangeBand,
+        Some("change band"),
+        "retype an observed band (asks its number)",
+    ),
+    b(
+        &[Key::ch('x')],
+        In(Panel::Spectra),
+        Action::RemoveBand,
+        None,
+        "remove an observed band (asks its number; u brings it back)",
+    ),
     b(
         &[Key::ch(']')],
         Everywhere,
@@ -375,6 +397,20 @@ pub const BINDINGS: &[Binding] = &[
         Action::Search,
         None,
         "find a point group (opens the Point group panel)",
+    ),
+    b(
+        &[Key::ch('T')],
+        Everywhere,
+        Action::EditTitle,
+        None,
+        "retype the session's title",
+    ),
+    b(
+        &[Key::ch('O')],
+        Everywhere,
+        Action::EditOrientation,
+        None,
+        "retype the orientation note (where the axes and members lie)",
     ),
     b(
         &[Key::ch('u')],

@@ -14,6 +14,7 @@ pub mod keymap;
 pub mod layout;
 pub mod molecule_edit;
 pub mod panels;
+pub mod session_edit;
 pub mod sgr16;
 pub mod signals;
 mod terminal;

@@ -141,14 +141,15 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     ));
     if bands.is_empty() {
         lines.push(styled(
-            "none recorded: add [[band]] entries to the session file",
+            "none recorded: + adds one (position technique [intensity] [p|dp] [note])",
             th.dim(),
             th,
         ));
     } else {
         lines.push(styled(
             &format!(
-                "{}{}{}{}{}",
+                "{}{}{}{}{}{}",
+                pad("#", 4),
                 pad(th.pick("cm⁻¹", "cm-1"), 10),
                 pad("technique", 11),
                 pad("intensity", 11),
@@ -158,10 +159,11 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
             th.dim(),
             th,
         ));
-        for b in bands {
+        for (k, b) in bands.iter().enumerate() {
             lines.push(styled(
                 &format!(
-                    "{}{}{}{}{}",
+                    "{}{}{}{}{}{}",
+                    pad(&format!("{}", k + 1), 4),
                     pad(&format!("{}", b.position), 10),
                     pad(b.technique.name(), 11),
                     pad(&b.intensity, 11),
