@@ -1,5 +1,6 @@
 //! Every panel of the workspace on the demo session, drawn with ratatui's TestBackend at
-//! 80×24 and 120×40, in Unicode and in ASCII: insta snapshots (review the `.snap` files by
+//! 80×24 (one pane), 120×32 (tiled in two columns) and 200×50 (three columns), in Unicode
+//! and in ASCII: insta snapshots (review the `.snap` files by
 //! reading them). Also the help overlay and the quit question.
 
 use ratatui::backend::TestBackend;
@@ -53,7 +54,7 @@ fn every_panel_at_both_sizes_in_both_modes() {
         let mut a = app(ascii);
         for p in Panel::ALL {
             a.apply(Action::GoPanel(p));
-            for (w, h) in [(80, 24), (120, 40)] {
+            for (w, h) in [(80, 24), (120, 32), (200, 50)] {
                 let name = format!(
                     "{}_{}x{}_{}",
                     slug(p),
@@ -62,6 +63,8 @@ fn every_panel_at_both_sizes_in_both_modes() {
                     if ascii { "ascii" } else { "unicode" }
                 );
                 let s = screen(&mut a, w, h);
+                // A cut is an ellipsis, never a tilde (which reads as "approximately").
+                assert!(!s.contains('~'), "{name} marks a cut with ~:\n{s}");
                 if ascii {
                     assert!(s.is_ascii(), "{name} has non-ASCII text:\n{s}");
                 }

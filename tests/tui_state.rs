@@ -253,3 +253,203 @@ fn every_binding_is_in_the_help_and_keys_are_not_bound_twice_in_one_panel() {
         }
     }
 }
+
+/// The tick grid's cell (member, class) on screen, wherever the layout put the Members pane.
+fn cell_xy(app: &App, row: usize, class: usize) -> Option<(u16, u16)> {
+    let tile = app
+        .tiles()
+        .into_iter()
+        .find(|t| t.panel == Panel::Members)?;
+    let a = app.analysis.as_ref().ok()?;
+    let s = a.sets.get(app.members_ui.set)?;
+    let g = salcdesk::tui::panels::members::grid(tile.area, app, a, s);
+    let (_, x0, w) = g.cols.iter().find(|(c, _, _)| *c == class)?;
+    let y = g.inner.y + g.row_y + (row - g.first_row) as u16;
+    Some((g.inner.x + x0 + w / 2, y))
+}
+
+/// Mouse ticking at every size the workspace is laid out for (one pane, two and three
+/// columns): a click on each visible cell of the first member flips that cell only (E stays,
+/// it is always ticked), from whichever pane had the focus.
+#[test]
+fn a_click_ticks_each_cell_in_every_layout() {
+    for (w, h) in [(80, 24), (120, 32), (200, 50)] {
+        let (mut app, _) = puzzle(&format!("click-{w}"));
+        app.screen = (w, h);
+        let classes = app.analysis.as_ref().unwrap().group.table.classes.len();
+        for c in 0..classes {
+            // Start from another pane where the Members pane is on screen with it.
+            let start = if app.tiled() {
+                Panel::Combinations
+            } else {
+                Panel::Members
+            };
+            app.apply(Action::GoPanel(start));
+            app.members_ui.col = c;
+            let Some((x, y)) = cell_xy(&app, 0, c) else {
+                panic!("{w}x{h}: class {c} not on screen");
+            };
+            let before = app.analysis.as_ref().unwrap().sets[0].grid[0].clone();
+            app.apply(Action::Click { x, y });
+            assert_eq!(
+                app.panel,
+                Panel::Members,
+                "{w}x{h}: the click focuses the grid"
+            );
+            let after = app.analysis.as_ref().unwrap().sets[0].grid[0].clone();
+            for k in 0..classes {
+                let flipped = before[k] != after[k];
+                let want = k == c && c != 0;
+                assert_eq!(flipped, want, "{w}x{h}: click on class {c}, class {k}");
+            }
+            app.apply(Action::Undo);
+        }
+    }
+}
+
+/// Tiles from 120x32 up, one pane below; z zooms the focused pane and back; the layout
+/// follows the screen size (a resize is a new size on the next frame).
+#[test]
+fn zoom_and_resize_choose_the_panes() {
+    let (mut app, _) = puzzle("zoom");
+    app.apply(Action::GoPanel(Panel::Members));
+    app.screen = (80, 24);
+    assert_eq!(app.tiles().len(), 1);
+    app.apply(Action::Zoom);
+    assert!(!app.zoom, "nothing to zoom on one pane");
+    app.screen = (120, 32);
+    let panes: Vec<Panel> = app.tiles().iter().map(|t| t.panel).collect();
+    assert_eq!(
+        panes,
+        [Panel::Members, Panel::Representation, Panel::Combinations]
+    );
+    app.screen = (200, 50);
+    assert_eq!(app.tiles().len(), 4);
+    app.apply(Action::Zoom);
+    assert_eq!(app.tiles().len(), 1);
+    assert_eq!(app.tiles()[0].panel, Panel::Members);
+    app.apply(Action::Zoom);
+    assert_eq!(app.tiles().len(), 4);
+    // A focused pane outside the usual tiles comes on screen in the last column.
+    app.apply(Action::GoPanel(Panel::Molecule));
+    assert!(app.tiles().iter().any(|t| t.panel == Panel::Molecule));
+    app.screen = (119, 50);
+    assert_eq!(app.tiles().len(), 1);
+}
+
+/// Each text pane keeps its own place when the focus moves on and comes back.
+#[test]
+fn every_pane_keeps_its_own_scroll() {
+    let (mut app, _) = puzzle("scroll");
+    app.screen = (80, 24);
+    app.apply(Action::GoPanel(Panel::Representation));
+    app.apply(Action::Down);
+    app.apply(Action::Down);
+    app.apply(Action::GoPanel(Panel::Spectra));
+    app.apply(Action::Down);
+    assert_eq!(app.scroll_of(Panel::Spectra), 1);
+    app.apply(Action::GoPanel(Panel::Representation));
+    assert_eq!(app.scroll_of(Panel::Representation), 2);
+}
+
+/// G in the help goes to its last page and k comes back from there at once; Ctrl-u clears
+/// the group search.
+#[test]
+fn help_scrolls_to_the_end_and_ctrl_u_clears_the_search() {
+    let (mut app, _) = puzzle("help");
+    app.screen = (80, 24);
+    app.apply(Action::Help);
+    app.handle_key(Key::ch('G'));
+    let Mode::Help { scroll: end } = app.mode else {
+        panic!("help closed")
+    };
+    assert!(end > 0, "the help is longer than 80x24");
+    app.handle_key(Key::ch('k'));
+    assert_eq!(app.mode, Mode::Help { scroll: end - 1 });
+    app.handle_key(Key::ch('g'));
+    assert_eq!(app.mode, Mode::Help { scroll: 0 });
+    app.handle_key(Key::plain(Code::Esc));
+    app.apply(Action::Search);
+    for c in "D4h".chars() {
+        app.handle_key(Key::ch(c));
+    }
+    assert_eq!(app.group_ui.query, "D4h");
+    app.handle_key(Key::ctrl('u'));
+    assert_eq!(app.group_ui.query, "");
+}
+
+/// Type a whole field: the keys that open it, the text, Enter.
+fn type_field(app: &mut App, open: Action, text: &str) {
+    app.apply(open);
+    app.handle_key(Key::ctrl('u'));
+    for c in text.chars() {
+        app.handle_key(Key::ch(c));
+    }
+    app.handle_key(Key::plain(Code::Enter));
+}
+
+/// Bands are added, changed and removed in the Spectra pane, each one undoable edit; a
+/// typed band is read like a band-list file line (bad ones refused with the reader's
+/// message, nothing changed); the list survives save and reload; title and orientation too.
+#[test]
+fn bands_title_and_orientation_are_edited_in_place_and_saved() {
+    let (mut app, path) = puzzle("bands");
+    app.apply(Action::GoPanel(Panel::Spectra));
+    let n0 = app.session.bands.len();
+    type_field(&mut app, Action::AddBand, "1020.5 Raman s p ring breathing");
+    assert_eq!(app.session.bands.len(), n0 + 1);
+    let b = app.session.bands.last().unwrap().clone();
+    assert_eq!(b.position, 1020.5);
+    assert_eq!(b.technique, session::Technique::Raman);
+    assert_eq!(b.intensity, "s");
+    assert_eq!(b.polarization, Some(session::Polarization::Polarized));
+    assert_eq!(b.note, "ring breathing");
+    for bad in ["Raman 300", "300 UV", "-5 IR", "300 IR p"] {
+        type_field(&mut app, Action::AddBand, bad);
+        assert_eq!(app.session.bands.len(), n0 + 1, "{bad} was accepted");
+        assert!(
+            app.status.as_ref().is_some_and(|s| s.error),
+            "{bad}: no message"
+        );
+    }
+    // Change it: the field starts from the band as typed.
+    let k = app.session.bands.len();
+    app.apply(Action::ChangeBand);
+    app.handle_key(Key::ctrl('u'));
+    for c in k.to_string().chars() {
+        app.handle_key(Key::ch(c));
+    }
+    app.handle_key(Key::plain(Code::Enter));
+    let Mode::Field(f) = &app.mode else {
+        panic!("no band field")
+    };
+    assert_eq!(f.text, "1020.5 Raman s p ring breathing");
+    app.handle_key(Key::ctrl('u'));
+    for c in "1018 IR m".chars() {
+        app.handle_key(Key::ch(c));
+    }
+    app.handle_key(Key::plain(Code::Enter));
+    let b = app.session.bands[k - 1].clone();
+    assert_eq!((b.position, b.technique), (1018.0, session::Technique::Ir));
+    type_field(&mut app, Action::EditTitle, "Puzzle, retitled");
+    type_field(&mut app, Action::EditOrientation, "C3 along z");
+    app.apply(Action::Save);
+    let back = session::load_file(&path).unwrap();
+    assert_eq!(back.bands, app.session.bands);
+    assert_eq!(back.title, "Puzzle, retitled");
+    assert_eq!(back.orientation, "C3 along z");
+    // Undo walks back: orientation, title, the change, the add.
+    for _ in 0..4 {
+        app.apply(Action::Undo);
+    }
+    assert_eq!(app.session.bands.len(), n0);
+    // Remove the first band (when the puzzle has one), and bring it back.
+    type_field(&mut app, Action::AddBand, "300 IR w");
+    type_field(&mut app, Action::RemoveBand, "99");
+    assert!(app.status.as_ref().is_some_and(|s| s.error));
+    assert_eq!(app.session.bands.len(), n0 + 1);
+    type_field(&mut app, Action::RemoveBand, "1");
+    assert_eq!(app.session.bands.len(), n0);
+    app.apply(Action::Undo);
+    assert_eq!(app.session.bands.len(), n0 + 1);
+}

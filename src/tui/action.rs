@@ -91,6 +91,18 @@ pub enum Action {
     NextIrrep,
     /// Replace the current set's ticks with the geometry's (members that name their atoms).
     TakeGeometryTicks,
+    /// Spectra: add an observed band.
+    AddBand,
+    /// Spectra: remove an observed band (asks its number).
+    RemoveBand,
+    /// Spectra: retype an observed band (asks its number).
+    ChangeBand,
+    /// Retype the session's title.
+    EditTitle,
+    /// Retype the session's orientation note.
+    EditOrientation,
+    /// Show the focused pane alone, or all panes again (tiled screens).
+    Zoom,
     /// Leave a dialog, search or overlay.
     Cancel,
     /// A character typed into a text field.

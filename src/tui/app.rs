@@ -26,6 +26,13 @@ pub enum FieldPurpose {
     AddBonds,
     RemoveBonds,
     Sites,
+    AddBand,
+    RemoveBandWhich,
+    ChangeBandWhich,
+    /// The band with this index, retyped.
+    ChangeBand(usize),
+    Title,
+    Orientation,
 }
 
 /// A one-line text field at the bottom of the screen.
@@ -104,8 +111,11 @@ pub struct App {
     pub status: Option<Status>,
     pub group_ui: GroupUi,
     pub members_ui: MembersUi,
-    /// Scroll of the text panels (Representation, Combinations, Spectra, Molecule).
-    pub scroll: u16,
+    /// Scroll of each text pane (Representation, Combinations, Spectra, Molecule), by panel
+    /// index: every pane keeps its own place.
+    pub scrolls: [u16; 6],
+    /// Show the focused pane alone although the screen could tile.
+    pub zoom: bool,
     pub undo: Vec<Session>,
     pub redo: Vec<Session>,
     pub ascii: bool,
@@ -143,7 +153,8 @@ impl App {
             group_ui: GroupUi::default(),
             members_ui: MembersUi::default(),
             combos_ui: Default::default(),
-            scroll: 0,
+            scrolls: [0; 6],
+            zoom: false,
             undo: Vec::new(),
             redo: Vec::new(),
             ascii,
@@ -165,6 +176,35 @@ impl App {
             .as_ref()
             .and_then(|p| p.parent())
             .map(|d| d.to_path_buf())
+    }
+
+    /// The scroll of a text pane.
+    pub fn scroll_of(&self, p: Panel) -> u16 {
+        self.scrolls[p.index()]
+    }
+
+    /// The panes on screen now and where they are (the same for drawing and clicks).
+    pub fn tiles(&self) -> Vec<super::layout::Tile> {
+        let size = ratatui::layout::Rect::new(0, 0, self.screen.0, self.screen.1);
+        let body = super::ui::areas(size).body;
+        super::layout::tiles(body, self.screen, self.panel, self.zoom, self.grid_rows())
+    }
+
+    /// Rows the tick grid would like: its members and the lines above and below them.
+    pub fn grid_rows(&self) -> u16 {
+        let members = self
+            .session
+            .sets
+            .get(self.members_ui.set)
+            .map(|s| s.members.len())
+            .unwrap_or(0);
+        let geometry = u16::from(self.session.geometry.is_some());
+        (members.min(200) as u16).max(1) + 10 + geometry
+    }
+
+    /// Whether the screen shows several panes.
+    pub fn tiled(&self) -> bool {
+        self.tiles().len() > 1
     }
 
     /// Whether there are edits not yet saved.
@@ -306,14 +346,20 @@ impl App {
                 let s = match key.code {
                     Code::Down | Code::Char('j') => scroll.saturating_add(1),
                     Code::Up | Code::Char('k') => scroll.saturating_sub(1),
-                    Code::PageDown => scroll.saturating_add(10),
+                    Code::PageDown | Code::Char(' ') => scroll.saturating_add(10),
                     Code::PageUp => scroll.saturating_sub(10),
+                    // The drawing stops at the last page, so "very far" is the bottom.
+                    Code::End | Code::Char('G') => u16::MAX,
+                    Code::Home | Code::Char('g') => 0,
                     _ => {
                         self.mode = Mode::Normal;
                         return;
                     }
                 };
-                self.mode = Mode::Help { scroll: s };
+                let size = ratatui::layout::Rect::new(0, 0, self.screen.0, self.screen.1);
+                let th = super::theme::Theme::new(self.color, self.ascii);
+                let max = super::panels::help::max_scroll(super::ui::areas(size).body, &th);
+                self.mode = Mode::Help { scroll: s.min(max) };
                 return;
             }
             Mode::Normal => {}
@@ -327,6 +373,11 @@ impl App {
                 }
                 Code::Backspace => {
                     self.group_ui.query.pop();
+                    self.group_ui.cursor = 0;
+                    return;
+                }
+                Code::Char('u') if key.ctrl => {
+                    self.group_ui.query.clear();
                     self.group_ui.cursor = 0;
                     return;
                 }
@@ -436,6 +487,7 @@ impl App {
                     stem,
                 )
             }
+            Action::Zoom => self.toggle_zoom(),
             Action::NextSet => self.switch_set(1),
             Action::PrevSet => self.switch_set(-1),
             Action::AddMember => self.add_member_prompt(),
@@ -486,6 +538,11 @@ impl App {
             Action::AddBond => self.bond_prompt(true),
             Action::RemoveBond => self.bond_prompt(false),
             Action::BuildSites => self.sites_prompt(),
+            Action::AddBand => self.add_band_prompt(),
+            Action::RemoveBand => self.band_number_prompt(FieldPurpose::RemoveBandWhich, "Remove"),
+            Action::ChangeBand => self.band_number_prompt(FieldPurpose::ChangeBandWhich, "Change"),
+            Action::EditTitle => self.title_prompt(),
+            Action::EditOrientation => self.orientation_prompt(),
             Action::NextGenerator => self.next_generator(),
             Action::NextIrrep => self.next_irrep(),
             Action::Char(_) | Action::Backspace => {}
@@ -494,9 +551,6 @@ impl App {
     }
 
     fn go(&mut self, p: Panel) {
-        if self.panel != p {
-            self.scroll = 0;
-        }
         self.panel = p;
         if p == Panel::Group {
             self.load_catalogue();
@@ -510,9 +564,35 @@ impl App {
         }
     }
 
-    /// Rows that fit in one page of the body.
+    /// Rows that fit in one page of the focused pane.
     fn page(&self) -> usize {
-        (self.screen.1 as usize).saturating_sub(10).max(1)
+        let h = self
+            .tiles()
+            .iter()
+            .find(|t| t.panel == self.panel)
+            .map(|t| t.area.height)
+            .unwrap_or(self.screen.1);
+        (h as usize).saturating_sub(6).max(1)
+    }
+
+    fn toggle_zoom(&mut self) {
+        let size = (self.screen.0, self.screen.1);
+        if super::layout::arrangement(size.0, size.1) == super::layout::Arrangement::Single {
+            self.zoom = false;
+            let (w, h) = super::layout::TILED;
+            return self.status(format!(
+                "one pane already fills the screen (panes tile from {w}x{h} up)"
+            ));
+        }
+        self.zoom = !self.zoom;
+        if self.zoom {
+            self.status(format!(
+                "{} alone; z again shows all panes",
+                self.panel.title()
+            ));
+        } else {
+            self.status("all panes");
+        }
     }
 
     fn move_by(&mut self, dx: i64, dy: i64) {
@@ -548,8 +628,9 @@ impl App {
                 self.members_ui.row = clampi(self.members_ui.row as i64 + dy, nrows);
                 self.members_ui.col = clampi(self.members_ui.col as i64 + dx, ncols);
             }
-            _ => {
-                self.scroll = (self.scroll as i64 + dy).clamp(0, 10_000) as u16;
+            p => {
+                let s = &mut self.scrolls[p.index()];
+                *s = (*s as i64 + dy).clamp(0, 10_000) as u16;
             }
         }
     }
@@ -868,6 +949,12 @@ impl App {
             FieldPurpose::AddBonds => self.bonds_done(true, &text),
             FieldPurpose::RemoveBonds => self.bonds_done(false, &text),
             FieldPurpose::Sites => self.sites_done(&text),
+            p @ (FieldPurpose::AddBand
+            | FieldPurpose::RemoveBandWhich
+            | FieldPurpose::ChangeBandWhich
+            | FieldPurpose::ChangeBand(_)
+            | FieldPurpose::Title
+            | FieldPurpose::Orientation) => self.band_field_done(p, &text),
         }
     }
 

@@ -235,6 +235,28 @@ pub const BINDINGS: &[Binding] = &[
         Some("build"),
         "build the molecule from the group's sites (replaces the geometry; u undoes)",
     ),
+    // Spectra
+    b(
+        &[Key::ch('+')],
+        In(Panel::Spectra),
+        Action::AddBand,
+        Some("add band"),
+        "add an observed band: position technique [intensity] [p|dp] [note]",
+    ),
+    b(
+        &[Key::ch('c')],
+        In(Panel::Spectra),
+        Action::ChangeBand,
+        Some("change band"),
+        "retype an observed band (asks its number)",
+    ),
+    b(
+        &[Key::ch('x')],
+        In(Panel::Spectra),
+        Action::RemoveBand,
+        None,
+        "remove an observed band (asks its number; u brings it back)",
+    ),
     b(
         &[Key::ch(']')],
         Everywhere,
@@ -256,6 +278,13 @@ pub const BINDINGS: &[Binding] = &[
         Action::NextPanel,
         Some("panel"),
         "next panel",
+    ),
+    b(
+        &[Key::ch('z')],
+        Everywhere,
+        Action::Zoom,
+        Some("zoom"),
+        "show the focused pane alone, or all panes again (screens from 120x32 tile)",
     ),
     b(
         &[Key::plain(BackTab)],
@@ -370,6 +399,20 @@ pub const BINDINGS: &[Binding] = &[
         "find a point group (opens the Point group panel)",
     ),
     b(
+        &[Key::ch('T')],
+        Everywhere,
+        Action::EditTitle,
+        None,
+        "retype the session's title",
+    ),
+    b(
+        &[Key::ch('O')],
+        Everywhere,
+        Action::EditOrientation,
+        None,
+        "retype the orientation note (where the axes and members lie)",
+    ),
+    b(
         &[Key::ch('u')],
         Everywhere,
         Action::Undo,
@@ -425,8 +468,13 @@ pub const BINDINGS: &[Binding] = &[
 pub const FIELD_KEYS: &[(&str, &str)] = &[
     ("letters, digits", "type into a search or name field"),
     ("Backspace", "delete the last character"),
+    ("Ctrl-u", "clear the whole field or search"),
     ("Enter", "accept the field"),
     ("Esc", "leave the field unchanged"),
+    (
+        "j/k g/G PgUp/PgDn",
+        "in this help: scroll (any other key closes it)",
+    ),
     (
         "y / n",
         "answer a question (other letters are named in the question)",

@@ -13,9 +13,12 @@ pub mod action;
 pub mod app;
 mod input;
 pub mod keymap;
+pub mod layout;
 pub mod molecule_edit;
 pub mod panels;
 mod reader;
+pub mod session_edit;
+pub mod sgr16;
 pub mod signals;
 mod terminal;
 pub mod text;
@@ -44,10 +47,24 @@ pub struct Options {
 /// Colour and ASCII settings after looking at the environment.
 pub fn look(opts: &Options) -> (bool, bool) {
     let no_color = std::env::var_os("NO_COLOR").is_some_and(|v| !v.is_empty());
-    let dumb = std::env::var("TERM").map(|t| t == "dumb").unwrap_or(false);
-    let color = !(opts.mono || no_color || dumb);
-    let ascii = opts.ascii || dumb;
+    let term = std::env::var("TERM").unwrap_or_default();
+    let (plain, no_glyphs) = limited_terminal(&term);
+    let color = !(opts.mono || no_color || plain);
+    let ascii = opts.ascii || no_glyphs;
     (color, ascii)
+}
+
+/// What a terminal type lacks: (colour, the Unicode glyphs). `dumb` and `vt100` have
+/// neither; the Linux console has the 16 colours but not the subscripts and box glyphs of its
+/// default font (common practice).
+pub fn limited_terminal(term: &str) -> (bool, bool) {
+    let t = term.trim();
+    let base = t.split('-').next().unwrap_or("");
+    match base {
+        "dumb" | "vt100" | "vt102" | "vt52" => (true, true),
+        "linux" => (false, true),
+        _ => (false, false),
+    }
 }
 
 /// The session to open: the file, a new session for a file that does not exist yet, or the
@@ -237,6 +254,29 @@ fn event_loop(
         if last_autosave.elapsed() >= AUTOSAVE {
             last_autosave = Instant::now();
             terminal::rescue_with(|| app.autosave());
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::limited_terminal;
+
+    /// Terminal types by what they lack (common practice: terminfo's dumb and vt100 entries
+    /// have no colour; the Linux console font has no subscripts or box glyphs beyond its own).
+    #[test]
+    fn limited_terminals_get_ascii_and_the_dumb_ones_no_colour() {
+        for (t, want) in [
+            ("dumb", (true, true)),
+            ("vt100", (true, true)),
+            ("vt102", (true, true)),
+            ("linux", (false, true)),
+            ("xterm-256color", (false, false)),
+            ("screen", (false, false)),
+            ("tmux-256color", (false, false)),
+            ("", (false, false)),
+        ] {
+            assert_eq!(limited_terminal(t), want, "{t}");
         }
     }
 }

@@ -45,7 +45,9 @@ fn write_rescue() {
     }
 }
 
-pub type Term = ratatui::Terminal<ratatui::backend::CrosstermBackend<Stdout>>;
+/// Frames go out through [`super::sgr16::BasicColours`]: the 16 basic colour codes only.
+pub type Term =
+    ratatui::Terminal<ratatui::backend::CrosstermBackend<super::sgr16::BasicColours<Stdout>>>;
 
 /// Raw mode, alternate screen, mouse; and the panic hook.
 pub fn enter() -> std::io::Result<Term> {
@@ -62,7 +64,9 @@ pub fn enter() -> std::io::Result<Term> {
         EnableMouseCapture,
         cursor::Hide
     )?;
-    ratatui::Terminal::new(ratatui::backend::CrosstermBackend::new(stdout()))
+    ratatui::Terminal::new(ratatui::backend::CrosstermBackend::new(
+        super::sgr16::BasicColours::new(stdout()),
+    ))
 }
 
 /// Give the terminal back as it was. Safe to call more than once, and on a terminal that is

@@ -21,7 +21,8 @@ pub fn pad_left(s: &str, w: usize) -> String {
     format!("{}{t}", " ".repeat(w.saturating_sub(n)))
 }
 
-/// Cut to at most `w` columns, marking the cut with `…` (or `~` in ASCII mode callers pass).
+/// Cut to at most `w` columns, marking the cut with `…` (never `~`, which reads as
+/// "approximately"); in ASCII mode the screen's last pass spells it `...`.
 pub fn trunc(s: &str, w: usize) -> String {
     if width(s) <= w {
         return s.to_string();
@@ -37,7 +38,7 @@ pub fn trunc(s: &str, w: usize) -> String {
         }
         out = next;
     }
-    out.push('~');
+    out.push('…');
     out
 }
 

@@ -10,6 +10,8 @@ use ratatui::symbols::border;
 pub struct Theme {
     pub color: bool,
     pub ascii: bool,
+    /// Draw the pane as the focused one among several (tiled layout only).
+    pub focused: bool,
 }
 
 /// Box-drawing made of plain ASCII.
@@ -24,9 +26,29 @@ pub const ASCII_BORDER: border::Set = border::Set {
     horizontal_bottom: "-",
 };
 
+/// The focused pane's frame in plain ASCII.
+pub const ASCII_FOCUS_BORDER: border::Set = border::Set {
+    top_left: "#",
+    top_right: "#",
+    bottom_left: "#",
+    bottom_right: "#",
+    vertical_left: "#",
+    vertical_right: "#",
+    horizontal_top: "=",
+    horizontal_bottom: "=",
+};
+
 impl Theme {
     pub fn new(color: bool, ascii: bool) -> Self {
-        Theme { color, ascii }
+        Theme {
+            color,
+            ascii,
+            focused: false,
+        }
+    }
+    /// The same theme for a pane that is (or is not) the focused one of several.
+    pub fn with_focus(self, focused: bool) -> Self {
+        Theme { focused, ..self }
     }
     fn fg(&self, c: Color) -> Style {
         if self.color {
@@ -40,6 +62,14 @@ impl Theme {
             ASCII_BORDER
         } else {
             border::ROUNDED
+        }
+    }
+    /// The frame of the focused pane among several: heavier lines (ASCII: `=` and `#`).
+    pub fn focus_border_set(&self) -> border::Set {
+        if self.ascii {
+            ASCII_FOCUS_BORDER
+        } else {
+            border::THICK
         }
     }
     pub fn border(&self) -> Style {

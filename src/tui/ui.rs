@@ -5,6 +5,7 @@
 use super::action::Panel;
 use super::app::{App, Mode, Question};
 use super::keymap;
+use super::layout;
 use super::panels;
 use super::text::{ascii_fold, trunc, width};
 use super::theme::Theme;
@@ -78,13 +79,17 @@ pub fn draw(f: &mut Frame, app: &App) {
     let a = areas(f.area());
     title_bar(f, a.title, app, &th);
     tabs(f, a.tabs, app, &th);
-    match app.panel {
-        Panel::Group => panels::group::draw(f, a.body, app, &th),
-        Panel::Members => panels::members::draw(f, a.body, app, &th),
-        Panel::Representation => panels::representation::draw(f, a.body, app, &th),
-        Panel::Combinations => panels::combinations::draw(f, a.body, app, &th),
-        Panel::Spectra => panels::spectra::draw(f, a.body, app, &th),
-        Panel::Molecule => panels::molecule::draw(f, a.body, app, &th),
+    let tiles = layout::tiles(
+        a.body,
+        (f.area().width, f.area().height),
+        app.panel,
+        app.zoom,
+        app.grid_rows(),
+    );
+    let several = tiles.len() > 1;
+    for t in &tiles {
+        let pth = th.with_focus(several && t.panel == app.panel);
+        pane(f, t.panel, t.area, app, &pth);
     }
     status_line(f, a.status, app, &th);
     footer(f, a.footer, app, &th);
@@ -98,10 +103,34 @@ pub fn draw(f: &mut Frame, app: &App) {
     }
 }
 
+/// Draw one pane.
+fn pane(f: &mut Frame, p: Panel, area: Rect, app: &App, th: &Theme) {
+    match p {
+        Panel::Group => panels::group::draw(f, area, app, th),
+        Panel::Members => panels::members::draw(f, area, app, th),
+        Panel::Representation => panels::representation::draw(f, area, app, th),
+        Panel::Combinations => panels::combinations::draw(f, area, app, th),
+        Panel::Spectra => panels::spectra::draw(f, area, app, th),
+        Panel::Molecule => panels::molecule::draw(f, area, app, th),
+    }
+}
+
 /// The ASCII safety net: whatever slipped through (a member name in Greek, a title with a
 /// dash) is shown as its one-character ASCII spelling or `?`.
+/// A cut marked `…` becomes `...` over the last three cells before the cut.
 fn ascii_only(f: &mut Frame) {
-    for cell in f.buffer_mut().content.iter_mut() {
+    let w = f.area().width.max(1) as usize;
+    let buf = f.buffer_mut();
+    for i in 0..buf.content.len() {
+        if buf.content[i].symbol() == "…" {
+            for k in i.saturating_sub(2)..=i {
+                if k / w == i / w {
+                    buf.content[k].set_char('.');
+                }
+            }
+        }
+    }
+    for cell in buf.content.iter_mut() {
         if !cell.symbol().is_ascii() {
             let folded = ascii_fold(cell.symbol());
             let c = folded.chars().next().unwrap_or('?');
@@ -164,12 +193,15 @@ fn tabs(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
 
 fn status_line(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     let line = match &app.mode {
-        Mode::Field(fl) => Line::from(vec![
-            Span::styled(format!("{}: ", fl.label), th.key()),
-            Span::raw(fl.text.clone()),
-            Span::styled(th.pick("█", "_"), th.key()),
-            Span::styled("   Enter accepts, Esc leaves", th.dim()),
-        ]),
+        // A field's question takes the status line and its text the footer's, so that what is
+        // typed is always in view, whatever the width.
+        Mode::Field(fl) => Line::from(Span::styled(
+            trunc(
+                &panels::fold(&format!("{}:", fl.label), th),
+                area.width as usize,
+            ),
+            th.key(),
+        )),
         _ => match &app.status {
             Some(s) => {
                 let t = if th.ascii {
@@ -191,7 +223,13 @@ fn status_line(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     f.render_widget(Paragraph::new(line), area);
 }
 
+/// Footer entries shown whatever else has to give way.
+const ALWAYS_IN_FOOTER: [&str; 3] = ["report", "quit", "help"];
+
 fn footer(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
+    if let Mode::Field(fl) = &app.mode {
+        return f.render_widget(Paragraph::new(field_line(fl, area.width, th)), area);
+    }
     let mut spans = Vec::new();
     let mut used = 0usize;
     let entries: Vec<(String, &str)> = if app.panel == Panel::Group && app.group_ui.typing {
@@ -203,9 +241,11 @@ fn footer(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     } else {
         keymap::footer(app.panel, th.ascii)
     };
-    // The way to the help overlay always shows; the rest fill the line in key-map order,
-    // skipping what does not fit.
-    let (help, rest): (Vec<_>, Vec<_>) = entries.into_iter().partition(|(_, w)| *w == "help");
+    // Report, quit and the way to the help overlay always show (at the end); the rest fill the
+    // line in key-map order, skipping what does not fit.
+    let (help, rest): (Vec<_>, Vec<_>) = entries
+        .into_iter()
+        .partition(|(_, w)| ALWAYS_IN_FOOTER.contains(w));
     let piece_w = |k: &str, words: &str| width(&format!(" {k} {words} "));
     let reserve: usize = help.iter().map(|(k, w)| piece_w(k, w)).sum();
     let room = (area.width as usize).saturating_sub(reserve);
@@ -223,6 +263,45 @@ fn footer(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         spans.push(Span::raw(format!(" {words} ")));
     }
     f.render_widget(Paragraph::new(Line::from(spans)), area);
+}
+
+/// The text being typed, its end always in view (the start gives way, marked `…`), and the
+/// field keys when there is room.
+pub fn field_line(fl: &super::app::Field, w: u16, th: &Theme) -> Line<'static> {
+    let w = w as usize;
+    let hint = th.pick(
+        "   Enter accepts · Esc leaves · Ctrl-u clears",
+        "   Enter accepts | Esc leaves | Ctrl-u clears",
+    );
+    let cursor = th.pick("█", "_");
+    let text = panels::fold(&fl.text, th);
+    let room = w.saturating_sub(3);
+    let shown = if width(&text) <= room {
+        text
+    } else {
+        // Keep the tail that fits after the mark.
+        let chars: Vec<char> = text.chars().collect();
+        let mut k = chars.len();
+        let mut tail = String::new();
+        while k > 0 {
+            let next: String = chars[k - 1..].iter().collect();
+            if width(&next) + width(th.pick("…", "...")) > room {
+                break;
+            }
+            tail = next;
+            k -= 1;
+        }
+        format!("{}{tail}", th.pick("…", "..."))
+    };
+    let mut spans = vec![
+        Span::styled("> ", th.key()),
+        Span::raw(shown.clone()),
+        Span::styled(cursor, th.key()),
+    ];
+    if width(&shown) + 3 + width(hint) <= w {
+        spans.push(Span::styled(hint, th.dim()));
+    }
+    Line::from(spans)
 }
 
 /// A rectangle of at most `w`×`h` centred in `area`.
@@ -304,10 +383,14 @@ pub fn click(app: &mut App, x: u16, y: u16) {
         }
         return;
     }
-    if y >= a.body.y && y < a.body.y + a.body.height {
-        match app.panel {
-            Panel::Members => panels::members::click(app, a.body, x, y),
-            Panel::Group => panels::group::click(app, a.body, x, y),
+    // A click in a pane focuses it and acts there (a tick in the grid ticks at once).
+    if let Some(t) = layout::hit(&app.tiles(), x, y) {
+        if t.panel != app.panel {
+            app.apply(super::action::Action::GoPanel(t.panel));
+        }
+        match t.panel {
+            Panel::Members => panels::members::click(app, t.area, x, y),
+            Panel::Group => panels::group::click(app, t.area, x, y),
             _ => {}
         }
     }

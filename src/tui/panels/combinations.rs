@@ -97,7 +97,7 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     }
     let max = lines.len().saturating_sub(inner.height as usize) as u16;
     f.render_widget(
-        Paragraph::new(lines).scroll((app.scroll.min(max), 0)),
+        Paragraph::new(lines).scroll((app.scroll_of(crate::tui::Panel::Combinations).min(max), 0)),
         inner,
     );
 }

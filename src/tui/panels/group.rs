@@ -68,7 +68,7 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     draw_list(f, left, app, th);
     let matches = app.group_matches();
     let chosen = matches.get(app.group_ui.cursor).map(|e| e.name.clone());
-    let b = block("Character table", th);
+    let b = block("Character table", &th.with_focus(false));
     let inner = b.inner(right);
     f.render_widget(b, right);
     let lines = match chosen.as_deref().map(group::load) {
@@ -79,7 +79,10 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     };
     let max = lines.len().saturating_sub(inner.height as usize) as u16;
     f.render_widget(
-        Paragraph::new(lines).scroll((app.scroll.min(max), app.group_ui.table_scroll)),
+        Paragraph::new(lines).scroll((
+            app.scroll_of(crate::tui::Panel::Group).min(max),
+            app.group_ui.table_scroll,
+        )),
         inner,
     );
 }

@@ -301,10 +301,9 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     let geo = geometry_line(a, s, app.ascii);
     if let Some((text, bad)) = &geo {
         let st = if *bad { th.warn() } else { th.dim() };
-        lines.push(Line::from(Span::styled(
-            trunc(&fold(text, th), inner.width as usize),
-            st,
-        )));
+        for l in super::wrap_folded(th, text, inner.width as usize) {
+            lines.push(styled(&l, st, th));
+        }
     }
     let legend = if geo.as_ref().is_some_and(|(_, bad)| *bad) {
         format!(
@@ -318,7 +317,9 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
             "{tick} = one operation of that class (the same for every row) leaves the member in place"
         )
     };
-    lines.push(styled(&trunc(&legend, inner.width as usize), th.dim(), th));
+    for l in super::wrap_folded(th, &legend, inner.width as usize) {
+        lines.push(styled(&l, th.dim(), th));
+    }
     if !s.unknown_ticks.is_empty() {
         let names: Vec<String> = s
             .unknown_ticks

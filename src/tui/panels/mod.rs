@@ -14,12 +14,22 @@ use super::theme::Theme;
 use ratatui::text::{Line, Span};
 use ratatui::widgets::Block;
 
-/// The frame around a panel.
+/// The frame around a panel; the focused one of several tiles is marked by its frame's style
+/// and a mark before its title (a glyph, so monochrome shows it too).
 pub fn block<'a>(title: &str, th: &Theme) -> Block<'a> {
+    let (border, mark, set) = if th.focused {
+        (
+            th.border_focus(),
+            th.pick("▸ ", "> "),
+            th.focus_border_set(),
+        )
+    } else {
+        (th.border(), "", th.border_set())
+    };
     Block::bordered()
-        .border_set(th.border_set())
-        .border_style(th.border())
-        .title(Span::styled(format!(" {title} "), th.title()))
+        .border_set(set)
+        .border_style(border)
+        .title(Span::styled(format!(" {mark}{title} "), th.title()))
 }
 
 /// A line of text in a style, folded to ASCII when the theme asks for it.

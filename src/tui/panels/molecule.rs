@@ -85,7 +85,7 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     }
     let max = lines.len().saturating_sub(inner.height as usize) as u16;
     f.render_widget(
-        Paragraph::new(lines).scroll((app.scroll.min(max), 0)),
+        Paragraph::new(lines).scroll((app.scroll_of(crate::tui::Panel::Molecule).min(max), 0)),
         inner,
     );
 }

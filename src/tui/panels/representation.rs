@@ -192,5 +192,8 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
         })
         .collect();
     let max = ls.len().saturating_sub(inner.height as usize) as u16;
-    f.render_widget(Paragraph::new(ls).scroll((app.scroll.min(max), 0)), inner);
+    f.render_widget(
+        Paragraph::new(ls).scroll((app.scroll_of(crate::tui::Panel::Representation).min(max), 0)),
+        inner,
+    );
 }

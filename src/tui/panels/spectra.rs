@@ -25,8 +25,27 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     }
     if let Ok(a) = &app.analysis {
         let width = inner.width as usize;
+        let labels: Vec<String> = a
+            .group
+            .table
+            .irreps
+            .iter()
+            .map(|i| i.label.clone())
+            .collect();
         let text_lines = |lines: &mut Vec<Line<'static>>, md: &str| {
-            for l in super::super::text::align_md_tables(md).lines() {
+            let md = if th.ascii {
+                md.to_string()
+            } else {
+                unicode_labels(md, &labels)
+            };
+            for l in super::super::text::align_md_tables(&md).lines() {
+                let rule = l.len() > 3 && l.chars().all(|c| c == '-');
+                let l = if rule && !th.ascii {
+                    "─".repeat(l.len())
+                } else {
+                    l.to_string()
+                };
+                let l = l.as_str();
                 for piece in super::wrap_folded(th, l, width) {
                     lines.push(styled(&piece, ratatui::style::Style::default(), th));
                 }
@@ -122,14 +141,15 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     ));
     if bands.is_empty() {
         lines.push(styled(
-            "none recorded: add [[band]] entries to the session file",
+            "none recorded: + adds one (position technique [intensity] [p|dp] [note])",
             th.dim(),
             th,
         ));
     } else {
         lines.push(styled(
             &format!(
-                "{}{}{}{}{}",
+                "{}{}{}{}{}{}",
+                pad("#", 4),
                 pad(th.pick("cm⁻¹", "cm-1"), 10),
                 pad("technique", 11),
                 pad("intensity", 11),
@@ -139,10 +159,11 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
             th.dim(),
             th,
         ));
-        for b in bands {
+        for (k, b) in bands.iter().enumerate() {
             lines.push(styled(
                 &format!(
-                    "{}{}{}{}{}",
+                    "{}{}{}{}{}{}",
+                    pad(&format!("{}", k + 1), 4),
                     pad(&format!("{}", b.position), 10),
                     pad(b.technique.name(), 11),
                     pad(&b.intensity, 11),
@@ -156,7 +177,49 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     }
     let max = lines.len().saturating_sub(inner.height as usize) as u16;
     f.render_widget(
-        Paragraph::new(lines).scroll((app.scroll.min(max), 0)),
+        Paragraph::new(lines).scroll((app.scroll_of(crate::tui::Panel::Spectra).min(max), 0)),
         inner,
     );
+}
+
+/// The report's ASCII irrep labels (`A1'`, `E2g`) in the workspace's Unicode style (A₁′, E₂g):
+/// only whole words that are labels of the group's own irreps are changed.
+pub fn unicode_labels(text: &str, labels: &[String]) -> String {
+    let is_word = |c: char| c.is_ascii_alphanumeric() || c == '\'' || c == '"';
+    let mut out = String::with_capacity(text.len());
+    let mut word = String::new();
+    let flush = |word: &mut String, out: &mut String| {
+        if labels.iter().any(|l| l == word) {
+            out.push_str(&crate::group::display_label(word));
+        } else {
+            out.push_str(word);
+        }
+        word.clear();
+    };
+    for c in text.chars() {
+        if is_word(c) {
+            word.push(c);
+        } else {
+            flush(&mut word, &mut out);
+            out.push(c);
+        }
+    }
+    flush(&mut word, &mut out);
+    out
+}
+
+#[cfg(test)]
+mod tests {
+    use super::unicode_labels;
+
+    /// D3h labels (Cotton, Appendix IIA) inside a report line; other words untouched.
+    #[test]
+    fn labels_of_the_group_and_only_they_change() {
+        let labels: Vec<String> = ["A1'", "A2'", "E'", "A1''", "A2''", "E''"]
+            .iter()
+            .map(|s| s.to_string())
+            .collect();
+        let out = unicode_labels("| A1' | E'' | x, y | A1g Eq |", &labels);
+        assert_eq!(out, "| A₁′ | E″ | x, y | A1g Eq |");
+    }
 }
