@@ -92,6 +92,13 @@ fn the_help_overlay_and_the_quit_question() {
     let mut a = app(false);
     a.apply(Action::Help);
     insta::assert_snapshot!("help_120x40", screen(&mut a, 120, 40));
+    // At 80 columns the descriptions wrap under themselves instead of being cut.
+    let small = screen(&mut a, 80, 24);
+    assert!(
+        !small.lines().any(|l| l.starts_with('│') && l.contains('…')),
+        "help cut at 80 columns:\n{small}"
+    );
+    insta::assert_snapshot!("help_80x24", small);
     a.mode = Mode::Ask(Question::Quit);
     insta::assert_snapshot!("quit_question_80x24", screen(&mut a, 80, 24));
 }

@@ -12,14 +12,29 @@ use ratatui::text::Line;
 use ratatui::widgets::Paragraph;
 use ratatui::Frame;
 
-/// For each set: Γ and the number of combinations it promises per irrep.
+/// For the current set (the one the tick grid shows): the number of combinations its
+/// reduction promises per irrep.
 pub fn promised(app: &App, th: &Theme) -> Vec<Line<'static>> {
     let mut out = Vec::new();
     let Ok(a) = &app.analysis else { return out };
     let g = &a.group;
-    for s in &a.sets {
+    let n = a.sets.len();
+    if n == 0 {
         out.push(styled(
-            &format!("{} ({} members)", s.name, s.members.len()),
+            "No member sets yet: n in Members starts one.",
+            th.dim(),
+            th,
+        ));
+    }
+    let k = app.members_ui.set.min(n.saturating_sub(1));
+    for s in a.sets.iter().skip(k).take(1) {
+        out.push(styled(
+            &format!(
+                "Set {}/{n}: {} ({} members; ] next set)",
+                k + 1,
+                s.name,
+                s.members.len()
+            ),
             th.heading(),
             th,
         ));
