@@ -244,7 +244,7 @@ mod fast_path_props {
         fn rational_ratio_matches_division(n in prop::sample::select(vec![1u32, 3, 4, 5, 7, 8, 12]),
                                            k in 0i64..12, j in 0i64..12, p in -9i64..9, q in 1i64..9) {
             let f = Cyclo::zeta(n, k) + Cyclo::from_int(2);
-            let v = &(&f * &Cyclo::frac(p, q)) + &(Cyclo::zeta(n, j) * Cyclo::from_int((j % 2) as i64));
+            let v = &(&f * &Cyclo::frac(p, q)) + &(Cyclo::zeta(n, j) * Cyclo::from_int(j % 2));
             let by_division = (&v / &f).to_rational();
             prop_assert_eq!(v.rational_ratio(&f), by_division);
         }
