@@ -213,3 +213,40 @@ fn square_roots_of_many_small_primes_are_refused_quickly() {
     assert!(matches!(sqrt_rational(&q), Err(SqrtError::TooLarge(_))));
     assert!(sqrt_rational(&num_rational::BigRational::from_integer(36.into())).is_ok());
 }
+
+mod fast_path_props {
+    // The 64-bit fast paths of rational arithmetic must give exactly what big rationals give
+    // (num-rational is the general path), and the coefficient-proportionality test of
+    // `rational_ratio` must agree with division and a rationality check.
+    use super::super::rat::Rat;
+    use super::*;
+    use num_bigint::BigInt;
+    use num_rational::BigRational;
+    use proptest::prelude::*;
+
+    fn big(n: i64, d: i64) -> BigRational {
+        BigRational::new(BigInt::from(n), BigInt::from(d))
+    }
+
+    proptest! {
+        #[test]
+        fn rat_ops_match_big_rationals(a in any::<i64>(), b in 1i64..i64::MAX, c in any::<i64>(), d in 1i64..i64::MAX) {
+            let (x, y) = (Rat::from_big(big(a, b)), Rat::from_big(big(c, d)));
+            prop_assert_eq!((&x * &y).to_big(), big(a, b) * big(c, d));
+            prop_assert_eq!((&x + &y).to_big(), big(a, b) + big(c, d));
+            prop_assert_eq!((&x - &y).to_big(), big(a, b) - big(c, d));
+            if a != 0 {
+                prop_assert_eq!(x.recip().to_big(), big(b, a));
+            }
+        }
+
+        #[test]
+        fn rational_ratio_matches_division(n in prop::sample::select(vec![1u32, 3, 4, 5, 7, 8, 12]),
+                                           k in 0i64..12, j in 0i64..12, p in -9i64..9, q in 1i64..9) {
+            let f = Cyclo::zeta(n, k) + Cyclo::from_int(2);
+            let v = &(&f * &Cyclo::frac(p, q)) + &(Cyclo::zeta(n, j) * Cyclo::from_int(j % 2));
+            let by_division = (&v / &f).to_rational();
+            prop_assert_eq!(v.rational_ratio(&f), by_division);
+        }
+    }
+}
