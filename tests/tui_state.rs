@@ -453,3 +453,39 @@ fn bands_title_and_orientation_are_edited_in_place_and_saved() {
     app.apply(Action::Undo);
     assert_eq!(app.session.bands.len(), n0 + 1);
 }
+
+/// Save-as writes the new file in the layout of the file the session came from: the user's
+/// comments survive (session::save_keeping; the library side is tests/session_keep_layout.rs).
+#[test]
+fn save_as_keeps_the_comments_of_the_opened_file() {
+    let (_, path) = puzzle("save-as-layout");
+    // A hand-edited file: the user's own comment lines.
+    let original = format!(
+        "# kept by hand: bands from the 2026 Raman run\n{}\n# end of file note\n",
+        std::fs::read_to_string(&path).unwrap()
+    );
+    std::fs::write(&path, &original).unwrap();
+    let mut app = App::new(
+        session::load_file(&path).unwrap(),
+        Some(path.clone()),
+        false,
+        false,
+    );
+    app.finish_analysis();
+    let comments: Vec<&str> = original
+        .lines()
+        .filter(|l| l.trim_start().starts_with('#'))
+        .collect();
+    assert_eq!(comments.len(), 2);
+    type_field(&mut app, Action::EditTitle, "Puzzle, saved elsewhere");
+    let to = path.with_file_name("copy.toml");
+    assert!(app.save_to(&to));
+    let written = std::fs::read_to_string(&to).unwrap();
+    for c in comments {
+        assert!(written.contains(c), "comment lost on save-as: {c}");
+    }
+    assert_eq!(
+        session::load_file(&to).unwrap().title,
+        "Puzzle, saved elsewhere"
+    );
+}

@@ -1010,7 +1010,9 @@ impl App {
 
     /// Save atomically; on success the path becomes the session's home. Returns success.
     pub fn save_to(&mut self, p: &Path) -> bool {
-        match session::save(&self.session, p) {
+        // Save-as keeps the comments and layout of the file the session came from.
+        let layout_from = self.path.clone().unwrap_or_else(|| p.to_path_buf());
+        match session::save_keeping(&self.session, &layout_from, p) {
             Ok(()) => {
                 if self.path.as_deref() != Some(p) {
                     self.recovery.clear();
