@@ -36,11 +36,9 @@ fn the_bipyramid_example_predicts_from_its_geometry() {
     assert_eq!(combos.levels.len(), 8 + 8 + 28);
     // [E'²] = A1' + E' in D3h (symmetric square of a doubly degenerate irrep; Herzberg,
     // Infrared and Raman Spectra, ch. II, Table 33 — from memory).
-    let over = combos
-        .levels
-        .iter()
-        .find(|l| l.label == "2ν3")
-        .expect("2ν3 (ν3 is the first E' fundamental in table order)");
+    let over = combos.levels.iter().find(|l| l.label == "2ν5").expect(
+        "2ν5 (ν5 is the first E' fundamental: A1', A1', A2'', A2'' come first, Mulliken 1955)",
+    );
     assert_eq!(over.symmetry.text, "A1' + E'");
 }
 

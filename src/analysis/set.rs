@@ -161,9 +161,10 @@ fn reduce(g: &PointGroup, unmoved: &[i64], kind: MemberKind, depth: Depth) -> Ou
         // Counts come from ticks: never negative, always one per class.
         Err(e) => return Outcome::Failed(e.to_string()),
     };
-    let reduction = rep::reduce(g, &chi);
+    let mut reduction = rep::reduce(g, &chi);
+    reduction.unmoved = Some((unmoved.to_vec(), kind));
     let result = match depth {
-        Depth::Full => rep::decompose(g, &chi),
+        Depth::Full => rep::decompose_unmoved(g, unmoved, kind),
         Depth::Quick => reduction.multiplicities(),
     };
     Outcome::Finite {

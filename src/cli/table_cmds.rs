@@ -100,12 +100,11 @@ pub fn reduce(a: &ReduceArgs, ascii: bool) -> CliResult {
     if g.is_linear() {
         return reduce_linear(&g, a, kind, ascii);
     }
-    let chi = match &a.unmoved {
-        Some(counts) => Character::from_unmoved(&g, counts, kind),
-        None => Character::parse(&g, &a.characters),
+    let r = match &a.unmoved {
+        Some(counts) => rep::reduce_unmoved(&g, counts, kind),
+        None => Character::parse(&g, &a.characters).map(|chi| rep::reduce(&g, &chi)),
     }
     .map_err(|e| CliError::input(e.to_string()))?;
-    let r = rep::reduce(&g, &chi);
     print!("{}", report::reduction::render(&g, &r, a.format, ascii));
     if r.is_valid() {
         Ok(())

@@ -21,7 +21,8 @@ pub use product::{
     irrep_character, symmetric_cube, symmetric_square,
 };
 pub use reduce::{
-    decompose, format_sum, parse_gamma, real_terms, reduce, suggest, Invalid, Line, RealTerm,
-    Reduction, Suggestion, Term,
+    decompose, decompose_unmoved, format_sum, parse_gamma, real_terms, reduce, reduce_unmoved,
+    suggest, suggest_reduction, suggest_unmoved, Invalid, Line, RealTerm, Reduction, Suggestion,
+    Term,
 };
 pub use vibration::{vibrations_from_gamma_3n, vibrations_from_unmoved, Vibrations};

@@ -4,7 +4,7 @@
 //! Impossible characters (a fractional or negative nᵢ) give an error naming the offending
 //! irreps, plus the single-class changes of χ that would give a valid decomposition.
 
-use super::character::Character;
+use super::character::{Character, MemberKind};
 use super::gamma_text::pair_label;
 use crate::exact::Cyclo;
 use crate::group::PointGroup;
@@ -37,6 +37,9 @@ pub struct Reduction {
     pub order: usize,
     pub chi: Character,
     pub lines: Vec<Line>,
+    /// When χ came from unmoved counts of a set of one kind: the counts and the kind, so that
+    /// suggestions stay within what such a set can give (see [`suggest_unmoved`]).
+    pub unmoved: Option<(Vec<i64>, MemberKind)>,
 }
 
 /// A single-class change that makes χ valid.
@@ -46,6 +49,8 @@ pub struct Suggestion {
     pub from: Cyclo,
     pub to: Cyclo,
     pub multiplicities: Vec<u64>,
+    /// For a set given by unmoved counts: the count before and after.
+    pub unmoved: Option<(i64, i64)>,
 }
 
 /// Why a character is not a representation.
@@ -125,7 +130,88 @@ pub fn reduce(g: &PointGroup, chi: &Character) -> Reduction {
         order: h,
         chi: chi.clone(),
         lines,
+        unmoved: None,
     }
+}
+
+/// Reduce the character of `counts` unmoved members of `kind` per class, remembering them.
+pub fn reduce_unmoved(
+    g: &PointGroup,
+    counts: &[i64],
+    kind: MemberKind,
+) -> Result<Reduction, super::CharacterError> {
+    let chi = Character::from_unmoved(g, counts, kind)?;
+    let mut r = reduce(g, &chi);
+    r.unmoved = Some((counts.to_vec(), kind));
+    Ok(r)
+}
+
+/// The suggestions fitting a reduction: by unmoved counts when it came from a set of one kind,
+/// otherwise single-class changes of χ.
+pub fn suggest_reduction(g: &PointGroup, r: &Reduction) -> Vec<Suggestion> {
+    match &r.unmoved {
+        Some((counts, kind)) => suggest_unmoved(g, counts, *kind),
+        None => suggest(g, &r.chi),
+    }
+}
+
+/// Multiplicities, or the diagnosis with suggestions that respect the set's kind.
+pub fn decompose_unmoved(
+    g: &PointGroup,
+    counts: &[i64],
+    kind: MemberKind,
+) -> Result<Vec<u64>, Invalid> {
+    let chi = Character::from_unmoved(g, counts, kind).map_err(|_| Invalid {
+        offending: Vec::new(),
+        suggestions: Vec::new(),
+    })?;
+    reduce(g, &chi).multiplicities().map_err(|mut inv| {
+        inv.suggestions = suggest_unmoved(g, counts, kind);
+        inv
+    })
+}
+
+/// Single-class changes of the unmoved counts of a set of `kind` that give a representation.
+/// A set of n members leaves 0 … n of them in place under any operation and all n under E, so
+/// only counts 0 ≤ k ≤ n of a class other than E are tried; the character is then k times the
+/// kind's per-member contribution (1 for a permutation set — stretches, bends, scalars —, the
+/// trace for Cartesian triples, trace − 1 for π pairs, det·trace for axial triples; Cotton,
+/// 3rd ed., §10.2), so every character suggested is one such a set can have.
+pub fn suggest_unmoved(g: &PointGroup, counts: &[i64], kind: MemberKind) -> Vec<Suggestion> {
+    let Some(&n) = counts.first() else {
+        return Vec::new();
+    };
+    let Ok(chi) = Character::from_unmoved(g, counts, kind) else {
+        return Vec::new();
+    };
+    let mut out = Vec::new();
+    for c in 1..counts.len() {
+        let mut trial_counts = counts.to_vec();
+        for k in 0..=n.max(0) {
+            if k == counts[c] {
+                continue;
+            }
+            trial_counts[c] = k;
+            let Ok(trial) = Character::from_unmoved(g, &trial_counts, kind) else {
+                continue;
+            };
+            if trial.0[c] == chi.0[c] {
+                continue; // this class contributes 0 per member: the count does not show
+            }
+            if let Ok(m) = reduce(g, &trial).multiplicities() {
+                out.push(Suggestion {
+                    class: c,
+                    from: chi.0[c].clone(),
+                    to: trial.0[c].clone(),
+                    multiplicities: m,
+                    unmoved: Some((counts[c], k)),
+                });
+            }
+        }
+    }
+    out.sort_by_key(|s| s.unmoved.map(|(a, b)| (a - b).abs()).unwrap_or(0));
+    out.truncate(8);
+    out
 }
 
 /// Multiplicities, or the full diagnosis with suggestions.
@@ -157,6 +243,13 @@ pub fn suggest(g: &PointGroup, chi: &Character) -> Vec<Suggestion> {
             if v == chi.0[c] {
                 continue;
             }
+            // |χ(R)| ≤ χ(E) for every representation (a sum of χ(E) roots of unity).
+            if c != 0 && {
+                let (re, im) = v.to_c64();
+                re.hypot(im) > dim as f64 + 1e-9
+            } {
+                continue;
+            }
             let mut trial = chi.clone();
             trial.0[c] = v.clone();
             if let Ok(m) = reduce(g, &trial).multiplicities() {
@@ -166,6 +259,7 @@ pub fn suggest(g: &PointGroup, chi: &Character) -> Vec<Suggestion> {
                         from: chi.0[c].clone(),
                         to: v,
                         multiplicities: m,
+                        unmoved: None,
                     });
                 }
             }

@@ -7,7 +7,7 @@ use super::table::{latex_label, latex_number};
 use super::Format;
 use crate::exact::{Cyclo, Notation};
 use crate::group::PointGroup;
-use crate::rep::{format_sum, suggest, Reduction};
+use crate::rep::{format_sum, suggest_reduction, Reduction};
 use serde_json::{json, Map, Value};
 
 fn num(v: &Cyclo, nt: Notation) -> String {
@@ -74,9 +74,10 @@ pub fn summary(g: &PointGroup, r: &Reduction, nt: Notation) -> String {
                 g.name(),
                 bad.join(", ")
             );
-            for sg in suggest(g, &r.chi) {
+            for sg in suggest_reduction(g, r) {
                 s.push_str(&format!(
-                    "\n  hint: χ({}) = {} instead of {} would give {}",
+                    "\n  hint: {}({}) = {} instead of {} would give {}",
+                    if unicode { "χ" } else { "chi" },
                     g.table.classes[sg.class].ascii,
                     sg.to.text(nt),
                     sg.from.text(nt),
@@ -210,7 +211,7 @@ pub fn to_json(g: &PointGroup, r: &Reduction) -> Value {
                     bad.join(", ")
                 )),
             );
-            let sug: Vec<Value> = suggest(g, &r.chi)
+            let sug: Vec<Value> = suggest_reduction(g, r)
                 .iter()
                 .map(|s| {
                     json!({
