@@ -133,7 +133,17 @@ pub fn orient_with(
             .position(|(_, r)| !maps(&(t.transpose() * r * t)))
         {
             None => {
-                let rotation = t * detection.frame;
+                // Of the orientations this one is equivalent to (the same positions with
+                // the atoms permuted by an operation of the group), keep the one closest
+                // to the input's own axes: an input already in standard orientation stays
+                // as it is.
+                let rotation = detection
+                    .operations
+                    .iter()
+                    .map(|g| t * g * detection.frame)
+                    .filter(|r| r.determinant() > 0.0)
+                    .max_by(|a, b| a.trace().total_cmp(&b.trace()))
+                    .unwrap_or(t * detection.frame);
                 let mut m = mol.clone();
                 for a in &mut m.atoms {
                     a.position = rotation * (a.position - detection.centre);
