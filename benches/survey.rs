@@ -1,5 +1,8 @@
 //! Timing of whole-molecule surveys: C60 (detect, orient, Γ3N/Γvib, bond and angle sets,
-//! near misses) and the large clusters (detect + orient + Γ3N/Γvib).
+//! near misses), and the timing clusters of tests/geom_molecules.rs both lean (detect +
+//! orient + Γ3N/Γvib) and with everything `salcdesk analyze` does by default (bonds, bond
+//! and angle sets, redundancies, near misses). The whole process, file reading and
+//! printing included, is timed as documented in README (Performance).
 
 #[path = "../tests/geom_molecules.rs"]
 mod molecules;
@@ -17,22 +20,13 @@ fn surveys(c: &mut Criterion) {
         near_misses: false,
         ..SurveyOptions::default()
     };
-    // Source: Au–Au 2.88 Å and the Cu lattice constant 3.615 Å, from memory.
-    let clusters = [
-        (
-            "survey_mackay_ih_1415",
-            molecules::mackay_icosahedron(7, 2.88),
-        ),
-        (
-            "survey_cubocta_oh_1415",
-            molecules::fcc_cuboctahedron(7, 3.615),
-        ),
-        ("survey_fcc_cube_oh_1099", molecules::fcc_cube(6, 3.615)),
-    ];
-    for (name, mol) in clusters {
+    for (name, mol, _) in molecules::timing_clusters() {
         let turned = molecules::scramble(&mol, 11, 0.0);
-        c.bench_function(name, |b| {
+        c.bench_function(&format!("survey_lean_{name}_turned"), |b| {
             b.iter(|| survey(black_box(&turned), &lean).unwrap())
+        });
+        c.bench_function(&format!("survey_default_{name}_turned"), |b| {
+            b.iter(|| survey(black_box(&turned), &SurveyOptions::default()).unwrap())
         });
     }
 }

@@ -1016,6 +1016,35 @@ pub fn fcc_cuboctahedron(shells: i64, a: f64) -> Molecule {
     Molecule::new("fcc cuboctahedron", atoms)
 }
 
+/// fcc truncated octahedron (group Oh): lattice points (x, y, z)·a/2 with x + y + z even,
+/// max(|x|, |y|, |z|) ≤ `cube` (the square faces) and |x| + |y| + |z| ≤ `octa` (the
+/// hexagonal faces); cube 7, octa 12 give 1139 atoms.
+pub fn fcc_truncated_octahedron(cube: i64, octa: i64, a: f64) -> Molecule {
+    let mut atoms = Vec::new();
+    for x in -cube..=cube {
+        for y in -cube..=cube {
+            for z in -cube..=cube {
+                let sum = x.abs() + y.abs() + z.abs();
+                if (x + y + z).rem_euclid(2) == 0 && sum <= octa {
+                    atoms.push(Atom::new(29, v(x as f64, y as f64, z as f64) * (a / 2.0)));
+                }
+            }
+        }
+    }
+    Molecule::new("fcc truncated octahedron", atoms)
+}
+
+/// The clusters of the timing runs (benches and README), with their groups. Source:
+/// Au–Au 2.88 Å and the Cu lattice constant 3.615 Å, from memory.
+pub fn timing_clusters() -> Vec<(&'static str, Molecule, &'static str)> {
+    vec![
+        ("oh_1139", fcc_truncated_octahedron(7, 12, 3.615), "Oh"),
+        ("ih_1415", mackay_icosahedron(7, 2.88), "Ih"),
+        ("ih_147", mackay_icosahedron(3, 2.88), "Ih"),
+        ("oh_1415", fcc_cuboctahedron(7, 3.615), "Oh"),
+    ]
+}
+
 /// fcc cube (group Oh): lattice points (x, y, z)·a/2 with x + y + z even, |x|,|y|,|z| ≤ n.
 pub fn fcc_cube(n: i64, a: f64) -> Molecule {
     let mut atoms = Vec::new();

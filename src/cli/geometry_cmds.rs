@@ -197,12 +197,13 @@ fn analyze_one(
     }
     let s = survey(&mol, &sopts).map_err(|e| format!("{}: {e}", path.display()))?;
     let name = path.display().to_string();
-    let json = report::survey::to_json(&name, &mol, &s);
-    let text = match a.format {
-        BatchFormat::One(f) if f != Format::Json => {
-            report::survey::render(&name, &mol, &s, f, ascii)
-        }
-        _ => String::new(),
+    // Only the rendering asked for (JSON of a 1,000-atom cluster costs more than its text).
+    let (text, json) = match a.format {
+        BatchFormat::One(f) if f != Format::Json => (
+            report::survey::render(&name, &mol, &s, f, ascii),
+            serde_json::Value::Null,
+        ),
+        _ => (String::new(), report::survey::to_json(&name, &mol, &s)),
     };
     Ok((text, json))
 }
@@ -390,12 +391,23 @@ pub fn symmetrize(a: &SymmetrizeArgs, ascii: bool) -> CliResult {
     let (ideal, shift) = geom::symmetrize(&s.oriented.molecule, &ops, tol)
         .map_err(|e| CliError::input(e.to_string()))?;
     let mut ideal = ideal;
-    ideal.title = format!(
-        "{} symmetrized to {} (largest shift {:.5} A)",
-        mol.title.trim(),
-        s.group.name(),
-        shift
-    );
+    // Averaging about the centre of mass keeps it on every element; put it at the origin
+    // exactly, so the axes of the standard orientation run through it.
+    let com = ideal.centre_of_mass();
+    for atom in &mut ideal.atoms {
+        atom.position -= com;
+    }
+    // An input that already is such a result (symmetric, centred and in standard
+    // orientation to well below the 10 printed decimals) is written back as it is, so
+    // that symmetrizing again changes nothing, byte for byte.
+    const SETTLED: f64 = 1e-9;
+    let unturned = (s.oriented.rotation - nalgebra::Matrix3::identity())
+        .iter()
+        .all(|x| x.abs() <= SETTLED);
+    if shift <= SETTLED && unturned && s.oriented.centre.norm() <= SETTLED {
+        ideal.atoms.clone_from(&mol.atoms);
+    }
+    ideal.title = symmetrized_title(&mol.title, s.group.name(), shift);
     let text = geom::write_xyz(&ideal);
     match &a.output {
         Some(p) => {
@@ -410,4 +422,53 @@ pub fn symmetrize(a: &SymmetrizeArgs, ascii: bool) -> CliResult {
         s.group.name()
     );
     Ok(())
+}
+
+/// The comment line of a symmetrized file: the original comment, the group and the largest
+/// shift. A comment that already says so (the file is the output of an earlier pass) is
+/// kept as it is when the group is the same and nothing moved at print precision, and
+/// otherwise replaced, never extended: symmetrizing again does not grow the comment.
+fn symmetrized_title(title: &str, group: &str, shift: f64) -> String {
+    const MARK: &str = "symmetrized to ";
+    let title = title.trim();
+    let (original, earlier) = match title.find(MARK) {
+        Some(k) => (title[..k].trim_end(), Some(&title[k + MARK.len()..])),
+        None => (title, None),
+    };
+    if let Some(rest) = earlier {
+        let same_group = rest.split_whitespace().next() == Some(group);
+        if same_group && shift < 5e-6 {
+            return title.to_string();
+        }
+    }
+    let line = format!("{MARK}{group} (largest shift {shift:.5} A)");
+    if original.is_empty() {
+        line
+    } else {
+        format!("{original} {line}")
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::symmetrized_title;
+
+    #[test]
+    fn the_comment_does_not_grow() {
+        let once = symmetrized_title("water", "C2v", 0.0123);
+        assert_eq!(once, "water symmetrized to C2v (largest shift 0.01230 A)");
+        assert_eq!(symmetrized_title(&once, "C2v", 0.0), once);
+        assert_eq!(
+            symmetrized_title(&once, "C2v", 0.002),
+            "water symmetrized to C2v (largest shift 0.00200 A)"
+        );
+        assert_eq!(
+            symmetrized_title(&once, "D2h", 0.0),
+            "water symmetrized to D2h (largest shift 0.00000 A)"
+        );
+        assert_eq!(
+            symmetrized_title("", "Td", 0.1),
+            "symmetrized to Td (largest shift 0.10000 A)"
+        );
+    }
 }

@@ -135,17 +135,6 @@ pub(crate) fn kabsch(src: &[V3], dst: &[V3]) -> M3 {
     )
 }
 
-/// Rotation R and translation t minimising Σ |R·src_i + t − dst_i|².
-pub(crate) fn kabsch_translate(src: &[V3], dst: &[V3]) -> (M3, V3) {
-    let n = src.len().max(1) as f64;
-    let cs: V3 = src.iter().sum::<V3>() / n;
-    let cd: V3 = dst.iter().sum::<V3>() / n;
-    let a: Vec<V3> = src.iter().map(|p| p - cs).collect();
-    let b: Vec<V3> = dst.iter().map(|p| p - cd).collect();
-    let r = kabsch(&a, &b);
-    (r, cd - r * cs)
-}
-
 /// Axis of a proper rotation with the sign of `hint`: from the antisymmetric part when
 /// the angle is clearly below π, else from (R + Rᵀ)/2 − cos θ·I = (1 − cos θ)·u·uᵀ.
 pub(crate) fn rotation_axis(r: &M3, hint: &V3) -> V3 {

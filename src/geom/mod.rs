@@ -25,12 +25,13 @@ pub use elements::{atomic_number, covalent_radius, mass, symbol};
 pub use error::GeomError;
 pub use molecule::{Atom, Molecule};
 pub use orient::{orient, orient_with, OrientOptions, Oriented};
-pub use permute::{permutation, symmetrize};
+pub use permute::{generator_indices, permutation, permutations, symmetrize};
 pub use site_spec::{build_from_sites, site_list, site_names, BuildError, SiteSpecError};
 pub use sites::{place, site_types, SiteKind, SiteParams, SiteType};
 pub use symmetry::{
-    detect, group_order, near_miss_summary, near_misses, supported_groups, Detection, Family,
-    NearMiss, DEFAULT_TOLERANCE, NEAR_MISS_TOLERANCES,
+    contains, detect, group_order, near_miss_detections, near_miss_summary, near_misses,
+    near_misses_from, supported_groups, Detection, Family, NearMiss, DEFAULT_TOLERANCE,
+    NEAR_MISS_TOLERANCES,
 };
 pub use xyz::{
     read_xyz, read_xyz_frames, write_xyz, FrameSelect, XyzError, XyzErrorKind, XyzOptions,

@@ -133,7 +133,46 @@ pub fn orient_with(
             .position(|(_, r)| !maps(&(t.transpose() * r * t)))
         {
             None => {
-                let rotation = t * detection.frame;
+                // Of the orientations this one is equivalent to, keep the one closest to
+                // the input's own axes, so that an input already in standard orientation
+                // stays as it is. Equivalent: turned by a rotation r that commutes with
+                // every representative (r·t is then a solution too, with the same
+                // convention, e.g. C3v turned by C2(z)), and with the atoms permuted by an
+                // operation g of the group.
+                let commutes = |r: &M3| {
+                    reps.iter()
+                        .all(|(_, m)| (r * m - m * r).iter().all(|x| x.abs() <= 1e-6))
+                };
+                // T and Th: their two settings (turned by 90° about z) are both standard
+                // and no class tells them apart; any r mapping the group onto itself
+                // keeps the convention.
+                let std_ops: Vec<M3> = detection
+                    .operations
+                    .iter()
+                    .map(|g| t * g * t.transpose())
+                    .collect();
+                let normalizes = |r: &M3| {
+                    matches!(detection.group.as_str(), "T" | "Th")
+                        && std_ops.iter().all(|g| {
+                            let h = r * g * r.transpose();
+                            std_ops
+                                .iter()
+                                .any(|o| (o - h).iter().all(|x| x.abs() <= 1e-6))
+                        })
+                };
+                let rotation = cands
+                    .iter()
+                    .map(|c| c * t.transpose())
+                    .filter(|r| commutes(r) || normalizes(r))
+                    .flat_map(|r| {
+                        detection
+                            .operations
+                            .iter()
+                            .map(move |g| r * t * g * detection.frame)
+                    })
+                    .filter(|r| r.determinant() > 0.0)
+                    .max_by(|a, b| a.trace().total_cmp(&b.trace()))
+                    .unwrap_or(t * detection.frame);
                 let mut m = mol.clone();
                 for a in &mut m.atoms {
                     a.position = rotation * (a.position - detection.centre);

@@ -95,6 +95,87 @@ pub fn permutation(mol: &Molecule, op: &M3, tol: f64) -> Result<Vec<usize>, Geom
     perm_in(mol, &pos, &grid, op, tol)
 }
 
+/// The permutation of every operation in `ops` (each as in [`permutation`]), with one
+/// spatial hash for all. When `ops` is a group, only a generating set is matched in space
+/// (O(N) each) and every other permutation is composed along the group's closure tree,
+/// O(N) array lookups; otherwise each operation is matched on its own.
+pub fn permutations(mol: &Molecule, ops: &[M3], tol: f64) -> Result<Vec<Vec<usize>>, GeomError> {
+    check_positive("tolerance", tol)?;
+    mol.validate()?;
+    for (k, op) in ops.iter().enumerate() {
+        if !is_orthogonal(op, 1e-6) {
+            return Err(GeomError::NotOrthogonal { index: k });
+        }
+    }
+    let (_, pos) = centred(mol);
+    let grid = Grid::new(&pos, (2.0 * tol).max(0.5));
+    let direct = |g: &M3| perm_in(mol, &pos, &grid, g, tol);
+    let Some((gens, tree)) = generated(ops) else {
+        return ops.iter().map(direct).collect();
+    };
+    let gperms = gens
+        .iter()
+        .map(|&k| direct(&ops[k]))
+        .collect::<Result<Vec<_>, _>>()?;
+    let n = pos.len();
+    let mut perms: Vec<Vec<usize>> = vec![Vec::new(); ops.len()];
+    for &(k, parent, g) in &tree {
+        perms[k] = match parent {
+            None => (0..n).collect(),
+            Some(p) => perms[p].iter().map(|&a| gperms[g][a]).collect(),
+        };
+    }
+    Ok(perms)
+}
+
+/// Indices of a generating set of the group `ops` (chosen greedily, in order), or of all
+/// operations when `ops` is not exactly a group. Orbits and invariance under a group need
+/// only its generators.
+pub fn generator_indices(ops: &[M3]) -> Vec<usize> {
+    match generated(ops) {
+        Some((gens, _)) => gens,
+        None => (0..ops.len()).collect(),
+    }
+}
+
+/// A generating set of `ops` (indices, chosen greedily) and, for every operation, how it
+/// is reached: `(index, parent index, generator)` with `ops[index] = gens[generator] ·
+/// ops[parent]`, parents before children. `None` if `ops` is not exactly the group the set
+/// generates.
+#[allow(clippy::type_complexity)]
+fn generated(ops: &[M3]) -> Option<(Vec<usize>, Vec<(usize, Option<usize>, usize)>)> {
+    let find = |m: &M3| ops.iter().position(|o| close(o, m, 1e-6));
+    let mut gens: Vec<usize> = Vec::new();
+    loop {
+        let mats: Vec<M3> = gens.iter().map(|&k| ops[k]).collect();
+        let cl = closure(&mats, ops.len())?;
+        if cl.ops.len() == ops.len() {
+            // Map the closure onto `ops`; each element must be found exactly once.
+            let idx: Vec<usize> = cl.ops.iter().map(find).collect::<Option<_>>()?;
+            let mut seen = vec![false; ops.len()];
+            for &k in &idx {
+                if std::mem::replace(&mut seen[k], true) {
+                    return None;
+                }
+            }
+            let tree = cl
+                .tree
+                .iter()
+                .enumerate()
+                .map(|(i, node)| match node {
+                    None => (idx[i], None, 0),
+                    Some((parent, g)) => (idx[i], Some(idx[*parent]), *g),
+                })
+                .collect();
+            return Some((gens, tree));
+        }
+        let next = ops
+            .iter()
+            .position(|o| !cl.ops.iter().any(|c| close(c, o, 1e-6)))?;
+        gens.push(next);
+    }
+}
+
 /// Idealises `mol` under the group `ops` (all operations, acting about the centre of
 /// mass): xᵢ' = c + (1/|G|) Σ_g g⁻¹·(x_{P_g(i)} − c). Returns the symmetrized molecule
 /// and the largest atom displacement (Å). Fails if `ops` is not a group or some operation

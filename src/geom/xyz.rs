@@ -460,12 +460,22 @@ pub fn write_xyz(mol: &Molecule) -> String {
         let p = a.position;
         let _ = writeln!(
             s,
-            "{:<3} {:>17.10} {:>17.10} {:>17.10}",
+            "{:<3} {:>17} {:>17} {:>17}",
             a.symbol(),
-            p.x,
-            p.y,
-            p.z
+            coordinate(p.x),
+            coordinate(p.y),
+            coordinate(p.z)
         );
     }
     s
+}
+
+/// A coordinate with 10 decimals; a value that prints as zero is written without a sign
+/// (no `-0.0000000000`, whether from negative zero or a tiny negative value).
+fn coordinate(x: f64) -> String {
+    let t = format!("{x:.10}");
+    match t.strip_prefix('-') {
+        Some(rest) if rest.bytes().all(|b| b == b'0' || b == b'.') => rest.to_string(),
+        _ => t,
+    }
 }

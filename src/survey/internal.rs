@@ -1,7 +1,7 @@
 //! Bond and angle sets: orbits of bonds and bond angles under the atom permutations, and how
 //! many members each class leaves in place.
 
-use std::collections::HashMap;
+use super::fx::FxMap;
 
 /// A set of symmetry-equivalent bonds.
 #[derive(Debug, Clone, PartialEq, Eq)]
@@ -27,13 +27,14 @@ fn norm_pair(a: usize, b: usize) -> (usize, usize) {
     }
 }
 
-/// Orbits of generic items under the permutations, by union–find over images.
+/// Orbits of generic items under the permutations (those of a generating set suffice),
+/// by union–find over images.
 fn orbits<T: Copy + Eq + std::hash::Hash + Ord>(
     items: &[T],
     image: impl Fn(&[usize], T) -> T,
     perms: &[Vec<usize>],
 ) -> Vec<Vec<T>> {
-    let index: HashMap<T, usize> = items.iter().enumerate().map(|(k, t)| (*t, k)).collect();
+    let index: FxMap<T, usize> = items.iter().enumerate().map(|(k, t)| (*t, k)).collect();
     let mut parent: Vec<usize> = (0..items.len()).collect();
     fn find(p: &mut [usize], x: usize) -> usize {
         let mut r = x;
@@ -58,7 +59,7 @@ fn orbits<T: Copy + Eq + std::hash::Hash + Ord>(
             }
         }
     }
-    let mut groups: HashMap<usize, Vec<T>> = HashMap::new();
+    let mut groups: FxMap<usize, Vec<T>> = FxMap::default();
     for (k, t) in items.iter().enumerate() {
         let r = find(&mut parent, k);
         groups.entry(r).or_default().push(*t);
@@ -102,7 +103,7 @@ pub fn angle_sets(
     symbol: impl Fn(usize) -> String,
     linear_cutoff_deg: f64,
 ) -> (Vec<AngleSet>, usize) {
-    let mut nbrs: HashMap<usize, Vec<usize>> = HashMap::new();
+    let mut nbrs: FxMap<usize, Vec<usize>> = FxMap::default();
     for &(a, b) in bonds {
         nbrs.entry(a).or_default().push(b);
         nbrs.entry(b).or_default().push(a);

@@ -85,9 +85,9 @@ fn check_bonds_symmetric(
     bonds: &[(usize, usize)],
     n_atoms: usize,
     w: &PointGroup,
-    permutations: &[Vec<usize>],
+    permutations: &[(usize, &Vec<usize>)],
 ) -> Result<(), SurveyError> {
-    let set: std::collections::HashSet<(usize, usize)> =
+    let set: super::fx::FxSet<(usize, usize)> =
         bonds.iter().map(|&(a, b)| (a.min(b), a.max(b))).collect();
     for &(a, b) in bonds {
         if a >= n_atoms || b >= n_atoms {
@@ -98,7 +98,7 @@ fn check_bonds_symmetric(
             });
         }
     }
-    for (k, perm) in permutations.iter().enumerate() {
+    for &(k, perm) in permutations {
         for &(a, b) in bonds {
             let (c, d) = (perm[a], perm[b]);
             if !set.contains(&(c.min(d), c.max(d))) {
@@ -258,11 +258,16 @@ pub fn survey(mol: &Molecule, opts: &SurveyOptions) -> Result<Survey, SurveyErro
         },
     )?;
     let perm_tol = 2.0 * detection.max_deviation + detection.tolerance;
-    let permutations: Vec<Vec<usize>> = w
-        .ops
+    let floats: Vec<nalgebra::Matrix3<f64>> = w.ops.iter().map(|op| op.float).collect();
+    let permutations = geom::permutations(&oriented.molecule, &floats, perm_tol)?;
+    // Invariance and orbits under the group need only its generators.
+    let generators: Vec<usize> = geom::generator_indices(&floats);
+    let gen_perms: Vec<(usize, &Vec<usize>)> =
+        generators.iter().map(|&k| (k, &permutations[k])).collect();
+    let gen_only: Vec<Vec<usize>> = generators
         .iter()
-        .map(|op| geom::permutation(&oriented.molecule, &op.float, perm_tol))
-        .collect::<Result<_, _>>()?;
+        .map(|&k| permutations[k].clone())
+        .collect();
     let class_ops: Vec<usize> = (0..w.n_classes())
         .map(|c| first_op_of_class(&w, c))
         .collect();
@@ -295,11 +300,11 @@ pub fn survey(mol: &Molecule, opts: &SurveyOptions) -> Result<Survey, SurveyErro
     } else {
         mol.bonds.clone()
     };
-    check_bonds_symmetric(&bonds, mol.atoms.len(), &w, &permutations)?;
+    check_bonds_symmetric(&bonds, mol.atoms.len(), &w, &gen_perms)?;
     let symbol = |i: usize| oriented.molecule.atoms[i].symbol().to_string();
     let class_perms: Vec<&Vec<usize>> = class_ops.iter().map(|&k| &permutations[k]).collect();
     let mut bond_out = Vec::new();
-    for set in bond_sets(&bonds, &permutations, symbol) {
+    for set in bond_sets(&bonds, &gen_only, symbol) {
         let unmoved: Vec<i64> = class_perms
             .iter()
             .map(|p| unmoved_bonds(&set.bonds, p))
@@ -323,7 +328,7 @@ pub fn survey(mol: &Molecule, opts: &SurveyOptions) -> Result<Survey, SurveyErro
         angle_sets(
             &bonds,
             &positions,
-            &permutations,
+            &gen_only,
             symbol,
             opts.linear_angle_cutoff,
         )
@@ -374,7 +379,7 @@ pub fn survey(mol: &Molecule, opts: &SurveyOptions) -> Result<Survey, SurveyErro
         ));
     }
     let near_misses = if opts.near_misses {
-        geom::near_misses(mol, &geom::NEAR_MISS_TOLERANCES).unwrap_or_default()
+        geom::near_misses_from(mol, &detection, &geom::NEAR_MISS_TOLERANCES).unwrap_or_default()
     } else {
         Vec::new()
     };

@@ -138,7 +138,7 @@ fn cubic(found: &Found) -> Option<Classified> {
 
 /// Classifies the elements found. `None` if they are inconsistent (the caller then
 /// tightens the screening tolerance).
-pub(crate) fn classify(ctx: &Ctx, found: &Found) -> Option<Classified> {
+pub(crate) fn classify(ctx: &Ctx, found: &Found, s: f64) -> Option<Classified> {
     let x_in = V3::x();
     let high: Vec<&Axis> = found.axes.iter().filter(|a| a.order >= 3).collect();
     if high.len() >= 2 {
@@ -175,11 +175,11 @@ pub(crate) fn classify(ctx: &Ctx, found: &Found) -> Option<Classified> {
         match found
             .axes
             .iter()
-            .find(|a| ctx.passes(&improper(&a.dir, PI / 2.0)))
+            .find(|a| ctx.passes_at(&improper(&a.dir, PI / 2.0), s))
         {
             Some(a) => a.clone(),
             None => {
-                let z = argmax_by(&dirs, |d| ctx.atoms_on_line(d))?;
+                let z = argmax_by(&dirs, |d| ctx.atoms_on_line(d, s))?;
                 Axis { dir: z, order: 2 }
             }
         }
@@ -204,8 +204,8 @@ pub(crate) fn classify(ctx: &Ctx, found: &Found) -> Option<Classified> {
         .filter(|a| a.order % 2 == 0 && a.dir.dot(&z).abs() < PERP)
         .map(|a| a.dir)
         .collect();
-    let sigma_h = ctx.passes(&reflection(&z));
-    let s2n = ctx.passes(&improper(&z, PI / n as f64));
+    let sigma_h = ctx.passes_at(&reflection(&z), s);
+    let s2n = ctx.passes_at(&improper(&z, PI / n as f64), s);
     let vertical: Vec<V3> = found
         .mirrors
         .iter()
@@ -215,7 +215,7 @@ pub(crate) fn classify(ctx: &Ctx, found: &Found) -> Option<Classified> {
     if !perp_c2.is_empty() {
         let (family, x) = if n == 2 && !s2n {
             // D2 / D2h: x normal to the plane (⟂ a C2 axis) holding most atoms.
-            let x = argmax_by(&perp_c2, |d| ctx.atoms_in_plane(d))?;
+            let x = argmax_by(&perp_c2, |d| ctx.atoms_in_plane(d, s))?;
             let f = if sigma_h {
                 Family::Dnh(2)
             } else {
@@ -223,7 +223,7 @@ pub(crate) fn classify(ctx: &Ctx, found: &Found) -> Option<Classified> {
             };
             (f, x)
         } else {
-            let x = argmax_by(&perp_c2, |d| ctx.atoms_on_line(d))?;
+            let x = argmax_by(&perp_c2, |d| ctx.atoms_on_line(d, s))?;
             let f = if sigma_h {
                 Family::Dnh(n)
             } else if s2n {
@@ -248,7 +248,7 @@ pub(crate) fn classify(ctx: &Ctx, found: &Found) -> Option<Classified> {
         });
     }
     if !vertical.is_empty() {
-        let best = argmax_by(&vertical, |m| ctx.atoms_in_plane(m))?;
+        let best = argmax_by(&vertical, |m| ctx.atoms_in_plane(m, s))?;
         // C2v: x normal to that plane (Mulliken); n ≥ 3: x inside it (σv(xz)).
         let x = if n == 2 { best } else { z.cross(&best) };
         return Some(Classified {

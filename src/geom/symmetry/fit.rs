@@ -1,10 +1,12 @@
 //! Fitting a chosen group to the molecule: atom permutations for the generators (found
 //! with the spatial hash, O(N) each) and for every other operation by composition along
 //! the closure tree; the closest symmetric structure is the group average
-//! yᵢ = (1/|G|) Σ_g g⁻¹·x_{P_g(i)}; the frame and centre are then re-fitted to it
-//! (Kabsch) and the largest displacement |xᵢ − yᵢ| is the detection's deviation.
+//! yᵢ = (1/|G|) Σ_g g⁻¹·x_{P_g(i)} about the centre of mass (which the average keeps in
+//! place); the frame is then re-fitted to it (Kabsch, rotation only) and the largest
+//! displacement |xᵢ − yᵢ| is the detection's deviation — exactly what symmetrizing the
+//! molecule to that group in that frame moves an atom.
 
-use super::super::linalg::{closure, kabsch_translate, M3, V3};
+use super::super::linalg::{closure, kabsch, M3, V3};
 use super::groups::Family;
 use super::search::Ctx;
 
@@ -12,8 +14,6 @@ use super::search::Ctx;
 const ROUNDS: usize = 2;
 
 pub(crate) struct FitResult {
-    /// Shift of the centre relative to the context's centre.
-    pub shift: V3,
     pub frame: M3,
     pub ops: Vec<M3>,
     pub max_dev: f64,
@@ -36,7 +36,7 @@ pub(crate) fn permutations(
     gens: &[M3],
     tree: &[Option<(usize, usize)>],
     frame: &M3,
-    shift: &V3,
+    s: f64,
 ) -> Option<Vec<Vec<usize>>> {
     let n = ctx.pos.len();
     let mut gperm = Vec::with_capacity(gens.len());
@@ -44,9 +44,9 @@ pub(crate) fn permutations(
         let m = frame.transpose() * g * frame;
         let mut p = Vec::with_capacity(n);
         for i in 0..n {
-            let img = shift + m * (ctx.pos[i] - shift);
+            let img = m * ctx.pos[i];
             let e = ctx.elem[i];
-            let (j, _) = ctx.grid.nearest(&img, ctx.s, |j| ctx.elem[j] == e)?;
+            let (j, _) = ctx.grid.nearest(&img, s, |j| ctx.elem[j] == e)?;
             p.push(j);
         }
         if !is_permutation(&p) {
@@ -79,33 +79,30 @@ pub(crate) fn group_average(q: &[V3], ops: &[M3], perms: &[Vec<usize>]) -> Vec<V
         .collect()
 }
 
-/// Fits `family` starting from `frame`; `None` if some generator fails at the screening
-/// tolerance.
-pub(crate) fn fit(ctx: &Ctx, family: Family, frame: M3) -> Option<FitResult> {
+/// Fits `family` starting from `frame`, matching atoms within `s`; `None` if some
+/// generator fails.
+pub(crate) fn fit(ctx: &Ctx, family: Family, frame: M3, s: f64) -> Option<FitResult> {
     let gens = family.generators();
     let cl = closure(&gens, 240)?;
     let mut frame = frame;
-    let mut shift = V3::zeros();
     for round in 0..=ROUNDS {
-        let perms = permutations(ctx, &gens, &cl.tree, &frame, &shift)?;
-        let q: Vec<V3> = ctx.pos.iter().map(|p| frame * (p - shift)).collect();
+        let perms = permutations(ctx, &gens, &cl.tree, &frame, s)?;
+        let q: Vec<V3> = ctx.pos.iter().map(|p| frame * p).collect();
         let y = group_average(&q, &cl.ops, &perms);
-        if round == ROUNDS {
-            let max_dev = q
-                .iter()
-                .zip(&y)
-                .map(|(a, b)| (a - b).norm())
-                .fold(0.0, f64::max);
+        let max_dev = q
+            .iter()
+            .zip(&y)
+            .map(|(a, b)| (a - b).norm())
+            .fold(0.0, f64::max);
+        if round == ROUNDS || max_dev <= 1e-9 {
             return Some(FitResult {
-                shift,
                 frame,
                 ops: cl.ops,
                 max_dev,
             });
         }
-        // q ≈ r·y + t: the symmetric structure sits rotated by r and shifted by t.
-        let (r, t) = kabsch_translate(&y, &q);
-        shift += frame.transpose() * t;
+        // q ≈ r·y: the symmetric structure sits rotated by r.
+        let r = kabsch(&y, &q);
         frame = r.transpose() * frame;
     }
     None

@@ -1,12 +1,18 @@
 //! Point-group detection on float geometries, and the near-miss report.
 //!
 //! Meaning of the tolerance `tol` (Å): the molecule has group G at `tol` when there is a
-//! G-symmetric structure (same atoms, found by group averaging in a fitted frame) from
-//! which no atom is more than `tol` away; that largest displacement is
-//! [`Detection::max_deviation`]. Candidate elements are screened at twice the tolerance
-//! (an image must land within 2·tol of an atom of its element), then the group is fitted
-//! and verified; if the fit exceeds `tol` the screening is tightened and the search
-//! repeated. Cost is about linear in the number of atoms (see [`search`]).
+//! G-symmetric structure (same atoms, found by group averaging about the centre of mass in
+//! a fitted frame) from which no atom is more than `tol` away; that largest displacement is
+//! [`Detection::max_deviation`], and [`crate::geom::symmetrize`] to the detected
+//! operations moves no atom further. Candidate elements are searched once, each recorded
+//! with the deviation it needs (an image must land within 2·tol of an atom of its
+//! element), then the group is fitted and verified; if the fit exceeds `tol` the
+//! screening is tightened by reading the same catalogue at a smaller deviation, without a
+//! new search. Cost is about linear in the number of atoms (see [`search`]).
+//!
+//! Near misses go up, never down: from the group at the tightest tolerance, each looser
+//! tolerance keeps it or finds a group containing it (same operations, same frame up to the
+//! refit), read from one element search at the loosest tolerance.
 //!
 //! Files: [`groups`] (names, orders, standard generators), [`classes`] (atom classes),
 //! [`search`] (elements), [`classify`] (flow chart and frame), [`fit`] (fit and verify).
@@ -136,7 +142,7 @@ fn linear(mol: &Molecule, tol: f64) -> Option<Detection> {
         return None;
     }
     let x = perpendicular(&e, &V3::x());
-    let centro = ctx.full(&(-M3::identity())).and_then(|p| {
+    let centro = ctx.matches(&(-M3::identity()), ctx.s).and_then(|(p, _)| {
         let dev = ctx
             .pos
             .iter()
@@ -175,24 +181,47 @@ fn linear(mol: &Molecule, tol: f64) -> Option<Detection> {
     Some(make(family, centre, frame, dev, tol, notes))
 }
 
-/// One search at screening tolerance `s`; `None` if the group found does not fit at `tol`.
-fn attempt(mol: &Molecule, centre: &V3, tol: f64, s: f64) -> Option<Detection> {
-    let ctx = prepare(mol, centre, s);
-    let found = search::find_elements(&ctx);
-    let cl = classify::classify(&ctx, &found)?;
-    let fitted = fit::fit(&ctx, cl.family, cl.frame)?;
-    if fitted.max_dev > tol {
-        return None;
+/// The elements of a molecule searched once, up to the screening tolerance `ctx.s`.
+struct Searched {
+    ctx: Ctx,
+    cat: search::Catalogue,
+    centre: V3,
+}
+
+fn search_elements(mol: &Molecule, s_max: f64) -> Searched {
+    let centre = mol.centre_of_mass();
+    let ctx = prepare(mol, &centre, s_max);
+    let cat = search::catalogue(&ctx);
+    Searched { ctx, cat, centre }
+}
+
+/// The group at `tol` read from the catalogue: screening from 2·tol down (×0.7 per step),
+/// the first classification whose fit stays within `tol` and that `accept` takes.
+fn group_at(sr: &Searched, tol: f64, accept: impl Fn(&Detection) -> bool) -> Option<Detection> {
+    let mut s = (2.0 * tol).min(sr.ctx.s);
+    for _ in 0..16 {
+        let found = sr.cat.at(s);
+        if let Some(cl) = classify::classify(&sr.ctx, &found, s) {
+            if let Some(f) = fit::fit(&sr.ctx, cl.family, cl.frame, s) {
+                if f.max_dev <= tol {
+                    let d = Detection {
+                        group: cl.family.name(),
+                        centre: sr.centre,
+                        frame: f.frame,
+                        max_deviation: f.max_dev,
+                        tolerance: tol,
+                        operations: f.ops,
+                        notes: cl.notes,
+                    };
+                    if accept(&d) {
+                        return Some(d);
+                    }
+                }
+            }
+        }
+        s *= 0.7;
     }
-    Some(Detection {
-        group: cl.family.name(),
-        centre: centre + fitted.shift,
-        frame: fitted.frame,
-        max_deviation: fitted.max_dev,
-        tolerance: tol,
-        operations: fitted.ops,
-        notes: cl.notes,
-    })
+    None
 }
 
 /// Detects the point group of `mol` at tolerance `tol` (Å; [`DEFAULT_TOLERANCE`] is
@@ -219,43 +248,112 @@ pub fn detect(mol: &Molecule, tol: f64) -> Result<Detection, GeomError> {
     if let Some(d) = linear(mol, tol) {
         return Ok(d);
     }
-    let centre = mol.centre_of_mass();
-    let mut s = 2.0 * tol;
-    for _ in 0..16 {
-        if let Some(d) = attempt(mol, &centre, tol, s) {
-            return Ok(d);
-        }
-        s *= 0.7;
-    }
-    Ok(make(Family::C1, centre, M3::identity(), 0.0, tol, vec![]))
+    let sr = search_elements(mol, 2.0 * tol);
+    Ok(group_at(&sr, tol, |_| true)
+        .unwrap_or_else(|| make(Family::C1, sr.centre, M3::identity(), 0.0, tol, vec![])))
 }
 
-/// The group at each tolerance in `tolerances` (ascending order is kept as given), with
-/// its largest deviation — e.g. for "D3h at 0.01 Å; D6h if 0.08 Å is allowed".
-pub fn near_misses(mol: &Molecule, tolerances: &[f64]) -> Result<Vec<NearMiss>, GeomError> {
-    let mut out: Vec<NearMiss> = Vec::with_capacity(tolerances.len());
-    for &t in tolerances {
-        // Ih and D∞h contain every other group a molecule can have: once reached, a looser
-        // tolerance cannot find more (and the search at large tolerances is the costly part).
-        if let Some(last) = out.last() {
-            if (last.group == "Ih" || last.group == "Dinfh") && t >= last.tolerance {
-                out.push(NearMiss {
-                    tolerance: t,
-                    ..last.clone()
-                });
-                continue;
+/// Groups no supported group contains: a looser tolerance cannot find more.
+fn is_maximal(group: &str) -> bool {
+    matches!(group, "Oh" | "Ih" | "Dinfh")
+}
+
+/// Whether the group of `big` contains that of `small` in a compatible orientation:
+/// every operation of `small` is (up to the frames' refits) an operation of `big`; for a
+/// linear `big`, every operation of `small` keeps its axis (C∞v: pointing the same way).
+pub fn contains(big: &Detection, small: &Detection) -> bool {
+    const SAME: f64 = 0.15;
+    let axis = |d: &Detection| -> V3 { d.frame.row(2).transpose() };
+    let linear = |d: &Detection| matches!(d.group.as_str(), "Cinfv" | "Dinfh");
+    if linear(small) {
+        return linear(big)
+            && axis(big).dot(&axis(small)).abs() >= 1.0 - SAME
+            && (big.group == "Dinfh" || small.group == "Cinfv");
+    }
+    let ops = small.input_operations();
+    if linear(big) {
+        let e = axis(big);
+        let both_ways = big.group == "Dinfh";
+        return ops.iter().all(|g| {
+            let ge = g * e;
+            (ge - e).norm() <= SAME || (both_ways && (ge + e).norm() <= SAME)
+        });
+    }
+    let theirs = big.input_operations();
+    ops.iter().all(|g| {
+        theirs
+            .iter()
+            .any(|h| (g - h).iter().all(|x| x.abs() <= SAME))
+    })
+}
+
+/// The detections of the near-miss report: `start`, then one for each tolerance in
+/// `tolerances` above `start.tolerance` (ascending), each the largest group found at that
+/// tolerance that contains the previous one (or the previous one kept, with its
+/// deviation). One element search at the loosest tolerance serves them all, and none is
+/// needed once a group no other contains (Oh, Ih, D∞h) is reached.
+pub fn near_miss_detections(
+    mol: &Molecule,
+    start: &Detection,
+    tolerances: &[f64],
+) -> Result<Vec<Detection>, GeomError> {
+    mol.validate()?;
+    let mut tols: Vec<f64> = tolerances
+        .iter()
+        .copied()
+        .filter(|t| t.is_finite() && *t > start.tolerance)
+        .collect();
+    tols.sort_by(f64::total_cmp);
+    tols.dedup();
+    let mut out = vec![start.clone()];
+    let mut searched: Option<Searched> = None;
+    let t_max = tols.last().copied().unwrap_or(start.tolerance);
+    for t in tols {
+        let prev = out.last().cloned().unwrap_or_else(|| start.clone());
+        let mut next = None;
+        if !is_maximal(&prev.group) && mol.atoms.len() > 1 {
+            next = linear(mol, t).filter(|d| contains(d, &prev));
+            if next.is_none() {
+                let sr = searched.get_or_insert_with(|| search_elements(mol, 2.0 * t_max));
+                next = group_at(sr, t, |d| contains(d, &prev));
             }
         }
-        let d = detect(mol, t)?;
-        out.push(NearMiss {
-            tolerance: t,
-            group: d.group,
-            max_deviation: d.max_deviation,
-        });
+        let mut d = match next {
+            Some(d) if d.group != prev.group => d,
+            _ => prev,
+        };
+        d.tolerance = t;
+        out.push(d);
     }
     Ok(out)
 }
 
+/// The near-miss report of `start` (see [`near_miss_detections`]).
+pub fn near_misses_from(
+    mol: &Molecule,
+    start: &Detection,
+    tolerances: &[f64],
+) -> Result<Vec<NearMiss>, GeomError> {
+    Ok(near_miss_detections(mol, start, tolerances)?
+        .into_iter()
+        .map(|d| NearMiss {
+            tolerance: d.tolerance,
+            group: d.group,
+            max_deviation: d.max_deviation,
+        })
+        .collect())
+}
+
+/// The group at each tolerance in `tolerances` (ascending, duplicates dropped), with its
+/// largest deviation — e.g. for "D3h at 0.01 Å; D6h if 0.08 Å is allowed". Detects at the
+/// smallest tolerance, then goes up (see [`near_miss_detections`]).
+pub fn near_misses(mol: &Molecule, tolerances: &[f64]) -> Result<Vec<NearMiss>, GeomError> {
+    let Some(t0) = tolerances.iter().copied().min_by(f64::total_cmp) else {
+        return Ok(Vec::new());
+    };
+    let start = detect(mol, t0)?;
+    near_misses_from(mol, &start, tolerances)
+}
 /// A one-line summary of a near-miss report: the first group, then each different group
 /// with the displacement it needs, e.g. `"D3h at 0.01 Å; D6h if 0.080 Å is allowed"`.
 pub fn near_miss_summary(report: &[NearMiss]) -> String {

@@ -23,14 +23,15 @@ pub(crate) const MAX_TEST_ORDER: usize = 24;
 /// Lines closer than this angle (radians) are the same symmetry element.
 const SAME_LINE: f64 = 0.05;
 
-/// Positions relative to the trial centre, elements, the spatial hash and the screening
-/// tolerance.
+/// Positions relative to the centre, elements, the spatial hash and the largest
+/// screening tolerance the context serves.
 pub(crate) struct Ctx {
     pub pos: Vec<V3>,
     pub elem: Vec<u8>,
     pub mass: Vec<f64>,
     pub grid: Grid,
-    /// Screening tolerance: an image must land within `s` of an atom of its element.
+    /// Largest screening tolerance: an image must land within `s` of an atom of its
+    /// element for an element to be recorded at all.
     pub s: f64,
 }
 
@@ -66,27 +67,41 @@ impl Ctx {
             .collect()
     }
 
-    /// Partner of every atom at the screening tolerance, or `None`.
-    pub(crate) fn full(&self, op: &M3) -> Option<Vec<usize>> {
-        self.full_at(op, self.s)
+    /// The permutation of `op` (nearest partner of each atom within `tol`) and the
+    /// largest partner distance: the element's deviation. `None` if an atom has no
+    /// partner or two atoms share one.
+    pub(crate) fn matches(&self, op: &M3, tol: f64) -> Option<(Vec<usize>, f64)> {
+        let n = self.pos.len();
+        let mut perm = Vec::with_capacity(n);
+        let mut taken = vec![false; n];
+        let mut worst = 0.0f64;
+        for i in 0..n {
+            let (j, d) = self.partner(op, i, tol)?;
+            if std::mem::replace(&mut taken[j], true) {
+                return None;
+            }
+            worst = worst.max(d);
+            perm.push(j);
+        }
+        Some((perm, worst))
     }
 
-    /// Whether `op` maps the whole molecule onto itself at the screening tolerance.
-    pub(crate) fn passes(&self, op: &M3) -> bool {
-        self.full(op).is_some()
+    /// Whether `op` maps the whole molecule onto itself within `s`.
+    pub(crate) fn passes_at(&self, op: &M3, s: f64) -> bool {
+        self.matches(op, s).is_some()
     }
 
     /// Number of atoms within `s` of the line through the centre along `u` (unit).
-    pub(crate) fn atoms_on_line(&self, u: &V3) -> usize {
+    pub(crate) fn atoms_on_line(&self, u: &V3, s: f64) -> usize {
         self.pos
             .iter()
-            .filter(|p| (*p - u * u.dot(p)).norm() <= self.s)
+            .filter(|p| (*p - u * u.dot(p)).norm() <= s)
             .count()
     }
 
     /// Number of atoms within `s` of the plane through the centre with normal `n` (unit).
-    pub(crate) fn atoms_in_plane(&self, n: &V3) -> usize {
-        self.pos.iter().filter(|p| n.dot(p).abs() <= self.s).count()
+    pub(crate) fn atoms_in_plane(&self, n: &V3, s: f64) -> usize {
+        self.pos.iter().filter(|p| n.dot(p).abs() <= s).count()
     }
 }
 
@@ -180,6 +195,15 @@ fn candidates(ctx: &Ctx, classes: &[Class]) -> Candidates {
             let wr = w.norm() / (pa.norm() * pa2.norm());
             push(&mut axes, w, wr);
             push(&mut mirrors, w, wr);
+            // Images of a lie at its distance from the centre (within the screening).
+            let ra = pa.norm();
+            let near = |k: f64| -> Vec<usize> {
+                m.iter()
+                    .copied()
+                    .filter(|&b| (p[b].norm() - ra).abs() <= k * s)
+                    .collect()
+            };
+            let (w2, w4) = (near(2.0), near(4.0));
             for &b in m {
                 let pb = p[b];
                 for r in [pa, pa2] {
@@ -189,7 +213,7 @@ fn candidates(ctx: &Ctx, classes: &[Class]) -> Candidates {
                 }
             }
             // Cn, n >= 3, not through a: normal of the triangle a, b = Cn a, c = Cn b.
-            for &b in m {
+            for &b in &w2 {
                 if b == a {
                     continue;
                 }
@@ -198,7 +222,7 @@ fn candidates(ctx: &Ctx, classes: &[Class]) -> Candidates {
                 if lab <= 2.0 * s {
                     continue;
                 }
-                for &c in m {
+                for &c in &w4 {
                     if c == a || c == b {
                         continue;
                     }
@@ -257,55 +281,153 @@ fn refine(ctx: &Ctx, perm: &[usize], improper: bool, hint: &V3) -> V3 {
     rotation_axis(&r, hint)
 }
 
-/// Checks the operation `make(u)` for a candidate direction `u`: quick rejection on the
-/// small class, a loose match (2·s) to refine the direction (candidate directions built
-/// from a few noisy atoms can be off by several mrad), then the strict match at `s` on
-/// the refined direction (or, failing that, on `u` itself). Returns the refined direction.
+/// Deviations at or below this (Å) are rounding: such an element is exact, its
+/// direction needs no refinement and its powers are exact too.
+pub(crate) const EXACT: f64 = 1e-8;
+
+/// Checks the operation `make(u)` for a candidate direction `u` and returns the best
+/// direction found with its deviation (≤ the context's `s`): quick rejection on the
+/// small class, the match on `u` itself, and unless that is exact a refinement of the
+/// direction from the pairs matched loosely (2·s; candidate directions built from a few
+/// noisy atoms can be off by several mrad), twice.
 fn test_op(
     ctx: &Ctx,
     u: &V3,
     improper: bool,
     small: &[usize],
     make: impl Fn(&V3) -> M3,
-) -> Option<V3> {
+) -> Option<(V3, f64)> {
     let loose = 2.0 * ctx.s;
     let op = make(u);
     if !ctx.maps_subset(&op, small, loose) {
         return None;
     }
-    let perm = ctx.full_at(&op, loose)?;
-    let u1 = refine(ctx, &perm, improper, u);
-    let (perm, base) = match ctx.full(&make(&u1)) {
-        Some(p) => (p, u1),
-        None => (ctx.full(&op)?, *u),
+    let mut best: Option<(V3, Vec<usize>, f64)> = ctx.matches(&op, ctx.s).map(|(p, d)| (*u, p, d));
+    if best.as_ref().is_some_and(|b| b.2 <= EXACT) {
+        return best.map(|(v, _, d)| (v, d));
+    }
+    let first = match &best {
+        Some((_, p, _)) => p.clone(),
+        None => ctx.full_at(&op, loose)?,
     };
-    Some(refine(ctx, &perm, improper, &base))
-}
-
-/// Tests rotation orders on direction `u` (highest first) from `min_order` up; returns the
-/// highest passing order with the refined axis.
-fn best_order(ctx: &Ctx, u: &V3, small: &[usize], min_order: usize) -> Option<(usize, V3)> {
-    let off = small
-        .iter()
-        .filter(|&&i| (ctx.pos[i] - u * u.dot(&ctx.pos[i])).norm() > ctx.s)
-        .count();
-    for n in (min_order.max(2)..=MAX_TEST_ORDER).rev() {
-        if off > 0 && off % n != 0 {
-            continue;
+    let mut perm = first;
+    let mut base = *u;
+    for _ in 0..2 {
+        let v = refine(ctx, &perm, improper, &base);
+        if let Some((p, d)) = ctx.matches(&make(&v), ctx.s) {
+            if best.as_ref().is_none_or(|b| d < b.2) {
+                best = Some((v, p.clone(), d));
+            }
         }
-        let angle = 2.0 * PI / n as f64;
-        if let Some(dir) = test_op(ctx, u, false, small, |d| rotation(d, angle)) {
-            return Some((n, dir));
+        match &best {
+            Some((v, p, _)) => {
+                base = *v;
+                perm = p.clone();
+            }
+            None => return None,
         }
     }
-    None
+    best.map(|(v, _, d)| (v, d))
 }
 
-/// Searches all symmetry elements at the context's screening tolerance.
-pub(crate) fn find_elements(ctx: &Ctx) -> Found {
+/// A line through the centre carrying rotation axes: each order found with its
+/// deviation (orders descending).
+#[derive(Debug, Clone)]
+pub(crate) struct Line {
+    pub dir: V3,
+    pub orders: Vec<(usize, f64)>,
+}
+
+/// Every symmetry element found up to the context's screening tolerance, each with the
+/// deviation it needs; [`Catalogue::at`] reads off the elements at a smaller screening
+/// tolerance without searching again.
+#[derive(Debug, Clone, Default)]
+pub(crate) struct Catalogue {
+    pub lines: Vec<Line>,
+    pub mirrors: Vec<(V3, f64)>,
+    pub inversion: Option<f64>,
+}
+
+impl Catalogue {
+    /// The elements whose deviation is at most `s`.
+    pub(crate) fn at(&self, s: f64) -> Found {
+        let axes = self
+            .lines
+            .iter()
+            .filter_map(|l| {
+                l.orders
+                    .iter()
+                    .filter(|(_, d)| *d <= s)
+                    .map(|(n, _)| *n)
+                    .max()
+                    .map(|order| Axis { dir: l.dir, order })
+            })
+            .collect();
+        let mirrors = self
+            .mirrors
+            .iter()
+            .filter(|(_, d)| *d <= s)
+            .map(|(n, _)| *n)
+            .collect();
+        Found {
+            axes,
+            mirrors,
+            inversion: self.inversion.is_some_and(|d| d <= s),
+        }
+    }
+}
+
+/// Rotation orders on the line along `u`: every order from 2 to [`MAX_TEST_ORDER`] that
+/// passes, with its deviation, on the direction refined for the highest one. Powers of an
+/// exact rotation are exact and not tested again.
+fn line_orders(ctx: &Ctx, u: &V3, small: &[usize]) -> Option<Line> {
+    let try_order = |dir: &V3, n: usize| -> Option<(V3, f64)> {
+        let off = small
+            .iter()
+            .filter(|&&i| (ctx.pos[i] - dir * dir.dot(&ctx.pos[i])).norm() > ctx.s)
+            .count();
+        if off > 0 && off % n != 0 {
+            return None;
+        }
+        let angle = 2.0 * PI / n as f64;
+        test_op(ctx, dir, false, small, |x| rotation(x, angle))
+    };
+    // The highest order on the candidate direction, then higher ones on the refined axis.
+    let (mut top, (mut dir, mut dev)) = (2..=MAX_TEST_ORDER)
+        .rev()
+        .find_map(|n| try_order(u, n).map(|r| (n, r)))?;
+    if (dir - u).norm() > 1e-9 {
+        if let Some((n, r)) = (top + 1..=MAX_TEST_ORDER)
+            .rev()
+            .find_map(|n| try_order(&dir, n).map(|r| (n, r)))
+        {
+            top = n;
+            (dir, dev) = r;
+        }
+    }
+    let mut orders = vec![(top, dev)];
+    for n in (2..top).rev() {
+        let inferred = orders
+            .iter()
+            .find(|(m, d)| m % n == 0 && *d * (m / n) as f64 <= EXACT)
+            .map(|(m, d)| *d * (m / n) as f64);
+        if let Some(d) = inferred {
+            orders.push((n, d));
+        } else if let Some((_, d)) = try_order(&dir, n) {
+            orders.push((n, d));
+        }
+    }
+    Some(Line {
+        dir: canonical(&dir),
+        orders,
+    })
+}
+
+/// Searches all symmetry elements up to the context's screening tolerance.
+pub(crate) fn catalogue(ctx: &Ctx) -> Catalogue {
     let cls = classes(&ctx.elem, &ctx.pos, 2.0 * ctx.s);
     let mut cand = candidates(ctx, &cls);
-    let mut found = Found::default();
+    let mut cat = Catalogue::default();
     let by_weight = |a: &(V3, f64), b: &(V3, f64)| b.1.total_cmp(&a.1);
     cand.axes.sort_by(by_weight);
     cand.mirrors.sort_by(by_weight);
@@ -313,33 +435,57 @@ pub(crate) fn find_elements(ctx: &Ctx) -> Found {
         let c = canonical(u) * 40.0;
         (c.x.round() as i64, c.y.round() as i64, c.z.round() as i64)
     };
+    // A line already known exactly needs no further candidates.
+    let settled_line = |lines: &[Line], u: &V3| {
+        lines
+            .iter()
+            .any(|l| same_line(&l.dir, u) && l.orders.iter().all(|o| o.1 <= EXACT))
+    };
     let mut tried = HashSet::new();
     for (u, _) in &cand.axes {
-        if !tried.insert(key(u)) || found.axes.iter().any(|a| same_line(&a.dir, u)) {
+        if !tried.insert(key(u)) || settled_line(&cat.lines, u) {
             continue;
         }
-        if let Some((n, dir)) = best_order(ctx, u, &cand.small, 2) {
-            // Retry higher orders on the refined axis.
-            let (n, dir) = best_order(ctx, &dir, &cand.small, n + 1).unwrap_or((n, dir));
-            if !found.axes.iter().any(|a| same_line(&a.dir, &dir)) {
-                found.axes.push(Axis {
-                    dir: canonical(&dir),
-                    order: n,
-                });
+        if let Some(line) = line_orders(ctx, u, &cand.small) {
+            match cat.lines.iter_mut().find(|l| same_line(&l.dir, &line.dir)) {
+                Some(old) => merge_line(old, line),
+                None => cat.lines.push(line),
             }
         }
     }
     tried.clear();
     for (u, _) in &cand.mirrors {
-        if !tried.insert(key(u)) || found.mirrors.iter().any(|m| same_line(m, u)) {
+        if !tried.insert(key(u))
+            || cat
+                .mirrors
+                .iter()
+                .any(|(m, d)| *d <= EXACT && same_line(m, u))
+        {
             continue;
         }
-        if let Some(n) = test_op(ctx, u, true, &cand.small, reflection) {
-            if !found.mirrors.iter().any(|m| same_line(m, &n)) {
-                found.mirrors.push(canonical(&n));
+        if let Some((n, d)) = test_op(ctx, u, true, &cand.small, reflection) {
+            match cat.mirrors.iter_mut().find(|(m, _)| same_line(m, &n)) {
+                Some(old) if d < old.1 => *old = (canonical(&n), d),
+                Some(_) => {}
+                None => cat.mirrors.push((canonical(&n), d)),
             }
         }
     }
-    found.inversion = ctx.passes(&(-M3::identity()));
-    found
+    cat.inversion = ctx.matches(&(-M3::identity()), ctx.s).map(|(_, d)| d);
+    cat
+}
+
+/// Keeps the better deviation of each order; the direction of the better highest order.
+fn merge_line(old: &mut Line, new: Line) {
+    let best_top = |l: &Line| l.orders.first().map(|o| (o.0, -o.1));
+    if best_top(&new) > best_top(old) {
+        old.dir = new.dir;
+    }
+    for (n, d) in new.orders {
+        match old.orders.iter_mut().find(|o| o.0 == n) {
+            Some(o) => o.1 = o.1.min(d),
+            None => old.orders.push((n, d)),
+        }
+    }
+    old.orders.sort_by_key(|o| std::cmp::Reverse(o.0));
 }

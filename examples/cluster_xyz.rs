@@ -1,0 +1,38 @@
+//! Writes the timing clusters as XYZ files into a folder, for the whole-process timings in
+//! README (Performance): each as built (`NAME.xyz`) and randomly turned and moved
+//! (`NAME_turned.xyz`). Built by the same code as the benches (tests/geom_molecules.rs).
+//!
+//! ```sh
+//! cargo run --release --example cluster_xyz -- DIR
+//! ```
+
+#[path = "../tests/geom_molecules.rs"]
+mod molecules;
+
+use salcdesk::geom::write_xyz;
+use std::path::PathBuf;
+
+fn main() {
+    let Some(dir) = std::env::args().nth(1).map(PathBuf::from) else {
+        eprintln!("usage: cluster_xyz DIR");
+        std::process::exit(2);
+    };
+    if let Err(e) = std::fs::create_dir_all(&dir) {
+        eprintln!("{}: {e}", dir.display());
+        std::process::exit(1);
+    }
+    for (name, mol, group) in molecules::timing_clusters() {
+        let turned = molecules::scramble(&mol, 11, 0.0);
+        for (file, m) in [
+            (format!("{name}.xyz"), &mol),
+            (format!("{name}_turned.xyz"), &turned),
+        ] {
+            let path = dir.join(&file);
+            if let Err(e) = std::fs::write(&path, write_xyz(m)) {
+                eprintln!("{}: {e}", path.display());
+                std::process::exit(1);
+            }
+            println!("{} ({} atoms, {group})", path.display(), m.atoms.len());
+        }
+    }
+}
