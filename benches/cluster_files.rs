@@ -2,8 +2,11 @@
 //! README (Performance): each as built (`NAME.xyz`) and randomly turned and moved
 //! (`NAME_turned.xyz`). Built by the same code as the benches (tests/geom_molecules.rs).
 //!
+//! A bench target only so that it lives in `benches/` (the top level holds no `examples/`); it
+//! measures nothing itself. Without a folder it writes into `target/clusters`.
+//!
 //! ```sh
-//! cargo run --release --example cluster_xyz -- DIR
+//! cargo bench --bench cluster_files -- DIR
 //! ```
 
 #[path = "../tests/geom_molecules.rs"]
@@ -13,10 +16,12 @@ use salcdesk::geom::write_xyz;
 use std::path::PathBuf;
 
 fn main() {
-    let Some(dir) = std::env::args().nth(1).map(PathBuf::from) else {
-        eprintln!("usage: cluster_xyz DIR");
-        std::process::exit(2);
-    };
+    // `cargo bench` passes flags such as `--bench`; the first other argument is the folder.
+    let dir = std::env::args()
+        .skip(1)
+        .find(|a| !a.starts_with("--"))
+        .map(PathBuf::from)
+        .unwrap_or_else(|| PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("target/clusters"));
     if let Err(e) = std::fs::create_dir_all(&dir) {
         eprintln!("{}: {e}", dir.display());
         std::process::exit(1);
