@@ -152,7 +152,7 @@ fn the_convention_is_stated_in_the_output() {
     let text = String::from_utf8_lossy(&out.stdout);
     assert!(text.contains("Mulliken 1955"), "{text}");
     assert!(
-        text.contains("ν1 = A1 459, ν2 = E 218, ν3 = T2 776, ν4 = T2 314"),
+        text.contains("ν1 = A₁ 459, ν2 = E 218, ν3 = T₂ 776, ν4 = T₂ 314"),
         "{text}"
     );
 }

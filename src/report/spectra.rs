@@ -129,9 +129,22 @@ pub fn combinations(r: &CombinationsReport, format: Format, ascii: bool) -> Stri
             .into(),
         ]);
     }
-    let mut s = table(&rows, format, ascii);
+    // The fundamentals with their customary numbers first, the numbering convention last.
+    let funds: Vec<String> = r
+        .fundamentals
+        .iter()
+        .map(|f| {
+            let pos = f.position_cm.map(|p| format!(" {p}")).unwrap_or_default();
+            let irrep = display(&f.irrep, format, ascii);
+            format!("{} = {irrep}{pos}", f.name.as_deref().unwrap_or("?"))
+        })
+        .collect();
+    let mut s = line(format, &format!("Fundamentals: {}", funds.join(", ")));
+    s.push('\n');
+    s.push_str(&table(&rows, format, ascii));
     s.push('\n');
     s.push_str(&line(format, &r.note));
+    s.push_str(&line(format, &r.numbering));
     finish(s, format, ascii)
 }
 
