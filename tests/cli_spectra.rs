@@ -145,3 +145,19 @@ fn modes_and_bands_from_a_session() {
     assert_eq!(code, 2);
     assert!(err.contains("no member set"), "{err}");
 }
+
+#[test]
+fn linear_descent_text_names_each_embedding_in_words() {
+    // Herzberg 1945 (bent symmetric XY2 from linear XY2): with C2 across the molecular axis,
+    // Σu⁺ → B2 and Πu → A1 + B1; the text must say which placement each table is for and
+    // write the classes as the tables do (σᵥ, C₂), not by internal ASCII names.
+    let (code, out, err) = run(&["descend", "Dinfh", "C2v"]);
+    assert_eq!(code, 0, "{err}");
+    assert!(out.contains("C2 along the molecular axis"), "{out}");
+    assert!(out.contains("C2 across the molecular axis"), "{out}");
+    assert!(out.contains("σᵥ(xz) ←"), "{out}");
+    assert!(!out.contains("sv(xz)"), "{out}");
+    let (code, out, _) = run(&["descend", "Dinfh", "C2v", "--ascii"]);
+    assert_eq!(code, 0);
+    assert!(out.contains("sv(xz) <-") && out.is_ascii(), "{out}");
+}

@@ -148,6 +148,24 @@ pub fn combinations(r: &CombinationsReport, format: Format, ascii: bool) -> Stri
     finish(s, format, ascii)
 }
 
+/// A class named in ASCII (`sh`, `2C4`) in the table's own symbol (σₕ, 2C₄) unless ASCII or
+/// LaTeX output is asked for; a name the table does not know is kept as given.
+fn class_display(group: &str, class: &str, format: Format, ascii: bool) -> String {
+    if ascii || format == Format::Latex {
+        return class.to_string();
+    }
+    crate::group::load(group)
+        .ok()
+        .and_then(|g| {
+            g.table
+                .classes
+                .iter()
+                .find(|c| c.ascii == class)
+                .map(|c| c.symbol.clone())
+        })
+        .unwrap_or_else(|| class.to_string())
+}
+
 /// The band-list check.
 pub fn check(r: &BandCheck, format: Format, ascii: bool) -> String {
     let mut s = line(
@@ -216,11 +234,23 @@ pub fn descent(r: &DescentReport, format: Format, ascii: bool) -> String {
     let mut s = String::new();
     for (k, e) in r.embeddings.iter().enumerate() {
         let mut head = format!("{} → {}", r.group, r.subgroup);
-        if r.embeddings.len() > 1 || !e.contains.is_empty() {
+        let contains: Vec<String> = e
+            .contains
+            .iter()
+            .map(|c| class_display(&r.group, c, format, ascii))
+            .collect();
+        if let Some(d) = &e.description {
+            // Linear groups: the embedding in the chemist's words (axis along or across).
+            head.push_str(&format!("  (embedding {}: {d}", k + 1));
+            if !contains.is_empty() {
+                head.push_str(&format!("; contains {}", contains.join(", ")));
+            }
+            head.push(')');
+        } else if r.embeddings.len() > 1 || !contains.is_empty() {
             head.push_str(&format!(
                 "  (embedding {}: contains {}; {} conjugate subgroup(s))",
                 k + 1,
-                e.contains.join(", "),
+                contains.join(", "),
                 e.conjugates
             ));
         }
@@ -230,7 +260,13 @@ pub fn descent(r: &DescentReport, format: Format, ascii: bool) -> String {
             let map: Vec<String> = e
                 .class_map
                 .iter()
-                .map(|l| format!("{} ← {}", l.subgroup_class, l.group_class))
+                .map(|l| {
+                    format!(
+                        "{} ← {}",
+                        class_display(&r.subgroup, &l.subgroup_class, format, ascii),
+                        class_display(&r.group, &l.group_class, format, ascii)
+                    )
+                })
                 .collect();
             s.push_str(&line(format, &format!("classes: {}", map.join(", "))));
             s.push('\n');
