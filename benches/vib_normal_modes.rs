@@ -39,8 +39,37 @@ fn spring_hessian(m: &Molecule, cut: f64) -> HessianInput {
     }
 }
 
+/// The C60 Hessian as a QCSchema result in target/, for timing the whole `normal-modes`
+/// process (README performance table).
+fn write_qcschema(h: &HessianInput) -> std::path::PathBuf {
+    let bohr = 0.529_177_210_903; // Å per bohr, CODATA 2018
+    let geometry: Vec<f64> = h
+        .positions
+        .iter()
+        .flat_map(|p| p.iter().map(|x| x / bohr))
+        .collect();
+    let symbols: Vec<&str> = h
+        .elements
+        .iter()
+        .map(|z| salcdesk::geom::elements::symbol(*z).unwrap_or("X"))
+        .collect();
+    let v = serde_json::json!({
+        "schema_name": "qcschema_output",
+        "driver": "hessian",
+        "molecule": {"symbols": symbols, "geometry": geometry},
+        "return_result": h.hessian.transpose().as_slice(),
+    });
+    let out = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("target/c60_hessian.json");
+    std::fs::write(&out, v.to_string()).unwrap();
+    out
+}
+
 fn bench(c: &mut Criterion) {
     let c60 = spring_hessian(&molecules::c60(), 1.5);
+    if std::env::var_os("SALCDESK_BENCH_WRITE_C60").is_some() {
+        eprintln!("wrote {}", write_qcschema(&c60).display());
+        return;
+    }
     let opts = Options::default();
     let nm = vib::normal_modes(&c60, &opts).unwrap();
     assert_eq!(nm.parent.point_group, "Ih");

@@ -80,6 +80,11 @@ const CASES: &[(&str, &[&str])] = &[
     ("detect", &["{dir}/cocl6.xyz", "--format", "json"]),
     ("symmetrize", &["{dir}/cluster.xyz"]),
     ("modes", &["{dir}/cocl6.xyz"]),
+    ("normal-modes", &["{repo}/tests/fixtures/vib/sf6.json"]),
+    (
+        "normal-modes",
+        &["{repo}/tests/fixtures/vib/benzene.json", "--format", "json"],
+    ),
     (
         "modes",
         &[

@@ -45,6 +45,7 @@ fn slug(p: Panel) -> &'static str {
         Panel::Combinations => "combinations",
         Panel::Spectra => "spectra",
         Panel::Molecule => "molecule",
+        Panel::Vibrations => "normal_modes",
     }
 }
 
@@ -52,7 +53,9 @@ fn slug(p: Panel) -> &'static str {
 fn every_panel_at_both_sizes_in_both_modes() {
     for ascii in [false, true] {
         let mut a = app(ascii);
-        for p in Panel::ALL {
+        // the demo names no Hessian, so Normal modes is not among its panes
+        assert!(!a.panels().contains(&Panel::Vibrations));
+        for p in a.panels() {
             a.apply(Action::GoPanel(p));
             for (w, h) in [(80, 24), (120, 32), (200, 50)] {
                 let name = format!(
@@ -152,4 +155,39 @@ fn a_session_with_a_geometry_shows_the_survey_and_the_salcs() {
             insta::assert_snapshot!(name, s);
         }
     }
+}
+
+/// The water frequency job (PySCF fixture, tests/fixtures/vib) next to a session naming it,
+/// in a temporary folder this test makes; the Normal modes pane focused at 120×32.
+#[test]
+fn a_session_with_a_hessian_shows_its_normal_modes_pane() {
+    std::env::set_var(
+        "SALCDESK_CACHE_DIR",
+        std::env::temp_dir().join(format!("salcdesk-snap-cache-{}", std::process::id())),
+    );
+    let d = std::env::temp_dir().join(format!("salcdesk-snap-vib-{}", std::process::id()));
+    std::fs::create_dir_all(&d).unwrap();
+    let fixture =
+        std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("tests/fixtures/vib/water.json");
+    std::fs::copy(fixture, d.join("water.json")).unwrap();
+    let p = d.join("water.toml");
+    std::fs::write(
+        &p,
+        "format = 1\ntitle = \"Water frequency job\"\n\n[[band]]\nposition = 3657.0\n\
+         technique = \"Raman\"\n\n[vibrations]\nhessian = \"water.json\"\n\
+         isotopes = [\"H=D\"]\nscale = 0.883\nband_tolerance = 80\n",
+    )
+    .unwrap();
+    let s = session::load_file(&p).unwrap();
+    let mut a = App::new(s, Some(p), false, false);
+    a.finish_analysis();
+    a.apply(Action::GoPanel(Panel::Vibrations));
+    assert_eq!(a.panel, Panel::Vibrations);
+    let s = screen(&mut a, 120, 32);
+    assert!(
+        s.contains("Normal modes — water.json") && s.contains("B₂"),
+        "{s}"
+    );
+    insta::assert_snapshot!("normal_modes_water_120x32_unicode", s);
+    let _ = std::fs::remove_dir_all(&d);
 }

@@ -489,3 +489,74 @@ fn save_as_keeps_the_comments_of_the_opened_file() {
         "Puzzle, saved elsewhere"
     );
 }
+
+/// The water frequency job (PySCF HF/STO-3G Hessian, tests/fixtures/vib) next to a session
+/// naming it: the Normal modes pane is in the Tab order and key 7 reaches it; it shows every
+/// mode with its species. A session without a Hessian skips the pane and says how to add one.
+#[test]
+fn a_session_with_a_hessian_has_a_normal_modes_pane() {
+    let dir = tmpdir("vib");
+    std::fs::copy(
+        Path::new(env!("CARGO_MANIFEST_DIR")).join("tests/fixtures/vib/water.json"),
+        dir.join("water.json"),
+    )
+    .unwrap();
+    let p = dir.join("water.toml");
+    std::fs::write(
+        &p,
+        "format = 1\ntitle = \"Water\"\n\n[vibrations]\nhessian = \"water.json\"\nscale = 0.883\n",
+    )
+    .unwrap();
+    let s = session::load_file(&p).unwrap();
+    let mut app = App::new(s, Some(p), false, false);
+    app.finish_analysis();
+    assert_eq!(app.panels(), Panel::ALL.to_vec());
+    // Tab visits every pane once, Normal modes among them, and comes back
+    let start = app.panel;
+    let mut seen = vec![];
+    for _ in 0..Panel::ALL.len() {
+        keys(&mut app, &[Key::plain(Code::Tab)]);
+        seen.push(app.panel);
+    }
+    assert_eq!(app.panel, start);
+    assert!(seen.contains(&Panel::Vibrations), "{seen:?}");
+    keys(&mut app, &[Key::ch('7')]);
+    assert_eq!(app.panel, Panel::Vibrations);
+    // the pane's text: one row per mode set, species of water (Herzberg 1945: 2A1 + B2)
+    let a = app.analysis.as_ref().unwrap();
+    let th = salcdesk::tui::theme::Theme::new(false, true);
+    let text: Vec<String> = salcdesk::tui::panels::vibrations::lines(a, &th, 110)
+        .iter()
+        .map(|l| l.to_string())
+        .collect();
+    let rows = |irrep: &str| {
+        text.iter()
+            .filter(|l| l.split_whitespace().any(|w| w == irrep))
+            .filter(|l| l.contains("nu"))
+            .count()
+    };
+    assert_eq!((rows("A1"), rows("B2")), (2, 1), "{text:#?}");
+    for nu in ["nu1", "nu2", "nu3"] {
+        assert!(text.iter().any(|l| l.contains(nu)), "{nu}: {text:#?}");
+    }
+    // down scrolls the pane
+    keys(&mut app, &[Key::plain(Code::Down)]);
+    assert_eq!(app.scroll_of(Panel::Vibrations), 1);
+
+    // no Hessian: Tab never lands on the pane, 7 stays put and says how to add one
+    let (mut app, _) = puzzle("novib");
+    assert!(!app.panels().contains(&Panel::Vibrations));
+    for _ in 0..2 * Panel::ALL.len() {
+        keys(&mut app, &[Key::plain(Code::BackTab)]);
+        assert_ne!(app.panel, Panel::Vibrations);
+    }
+    let before = app.panel;
+    keys(&mut app, &[Key::ch('7')]);
+    assert_eq!(app.panel, before);
+    let st = app
+        .status
+        .as_ref()
+        .map(|s| s.text.clone())
+        .unwrap_or_default();
+    assert!(st.contains("[vibrations] hessian"), "{st}");
+}

@@ -73,7 +73,11 @@ fn run(
         symmetrize: v.symmetrize,
         ..Options::default()
     };
-    let modes = vib::normal_modes(&input, &opts).map_err(|e| e.to_string())?;
+    let mut modes = vib::normal_modes(&input, &opts).map_err(|e| e.to_string())?;
+    // A job without a name is titled by its file: as the session names it, not the full path.
+    if modes.title == hessian.display().to_string() {
+        modes.title = v.hessian.clone();
+    }
     let bands = super::observed_bands(s);
     let assignments = if bands.is_empty() {
         Vec::new()

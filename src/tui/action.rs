@@ -10,16 +10,20 @@ pub enum Panel {
     Combinations,
     Spectra,
     Molecule,
+    /// Normal modes of the session's Hessian (`[vibrations]`); only in the Tab order when the
+    /// session names one.
+    Vibrations,
 }
 
 impl Panel {
-    pub const ALL: [Panel; 6] = [
+    pub const ALL: [Panel; 7] = [
         Panel::Group,
         Panel::Members,
         Panel::Representation,
         Panel::Combinations,
         Panel::Spectra,
         Panel::Molecule,
+        Panel::Vibrations,
     ];
     /// The panel's title: plain chemistry words.
     pub fn title(self) -> &'static str {
@@ -30,6 +34,7 @@ impl Panel {
             Panel::Combinations => "Combinations",
             Panel::Spectra => "Spectra",
             Panel::Molecule => "Molecule",
+            Panel::Vibrations => "Normal modes",
         }
     }
     pub fn index(self) -> usize {

@@ -113,7 +113,7 @@ pub struct App {
     pub members_ui: MembersUi,
     /// Scroll of each text pane (Representation, Combinations, Spectra, Molecule), by panel
     /// index: every pane keeps its own place.
-    pub scrolls: [u16; 6],
+    pub scrolls: [u16; Panel::ALL.len()],
     /// Show the focused pane alone although the screen could tile.
     pub zoom: bool,
     pub undo: Vec<Session>,
@@ -153,7 +153,7 @@ impl App {
             group_ui: GroupUi::default(),
             members_ui: MembersUi::default(),
             combos_ui: Default::default(),
-            scrolls: [0; 6],
+            scrolls: [0; Panel::ALL.len()],
             zoom: false,
             undo: Vec::new(),
             redo: Vec::new(),
@@ -408,8 +408,8 @@ impl App {
             self.status = None;
         }
         match action {
-            Action::NextPanel => self.go(self.panel.next()),
-            Action::PrevPanel => self.go(self.panel.prev()),
+            Action::NextPanel => self.go(self.step_panel(1)),
+            Action::PrevPanel => self.go(self.step_panel(-1)),
             Action::GoPanel(p) => self.go(p),
             Action::Up => self.move_by(0, -1),
             Action::Down => self.move_by(0, 1),
@@ -550,7 +550,29 @@ impl App {
         }
     }
 
+    /// The panes this session has, in Tab order: Normal modes only when it names a Hessian.
+    pub fn panels(&self) -> Vec<Panel> {
+        Panel::ALL
+            .into_iter()
+            .filter(|p| *p != Panel::Vibrations || self.session.vibrations.is_some())
+            .collect()
+    }
+
+    /// The pane `d` steps along the Tab order from the focused one.
+    fn step_panel(&self, d: i64) -> Panel {
+        let ps = self.panels();
+        let i = ps.iter().position(|p| *p == self.panel).unwrap_or(0) as i64;
+        ps[(i + d).rem_euclid(ps.len() as i64) as usize]
+    }
+
     fn go(&mut self, p: Panel) {
+        if !self.panels().contains(&p) {
+            return self.status(
+                "no Hessian in this session: add [vibrations] hessian = \"job.json\" to the \
+                 session file (a QCSchema result, or a plain Hessian with units) to see its \
+                 normal modes",
+            );
+        }
         self.panel = p;
         if p == Panel::Group {
             self.load_catalogue();

@@ -336,6 +336,13 @@ pub const BINDINGS: &[Binding] = &[
         "Molecule panel",
     ),
     b(
+        &[Key::ch('7')],
+        Everywhere,
+        Action::GoPanel(Panel::Vibrations),
+        None,
+        "Normal modes panel (when the session names a Hessian)",
+    ),
+    b(
         &[Key::plain(Up), Key::ch('k')],
         Everywhere,
         Action::Up,

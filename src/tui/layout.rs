@@ -3,9 +3,9 @@
 //! Below [`TILED`] the workspace shows one pane (the focused one). From there up it tiles: the
 //! tick grid (Members) over the worked reduction (Representation) on the left, the current
 //! set's combinations on the right; from [`WIDE`] up a third column shows Spectra. A focused
-//! pane that is not among the tiles (Point group, Molecule, Spectra on a medium screen) takes
-//! the place of the last column, so the focus is always on screen. Zoom shows the focused pane
-//! alone at any size. Pure functions: drawing and mouse clicks use the same tiles.
+//! pane that is not among the tiles (Point group, Molecule, Normal modes, Spectra on a medium
+//! screen) takes the place of the last column, so the focus is always on screen. Zoom shows
+//! the focused pane alone at any size. Pure functions: drawing and mouse clicks use the same tiles.
 
 use super::action::Panel;
 use ratatui::layout::Rect;
@@ -64,11 +64,13 @@ pub fn tiles(
     match arrangement(screen.0, screen.1) {
         Arrangement::Single => single,
         Arrangement::Two => {
-            let (left, right) = split_h(body, body.width * 11 / 20);
             let last = match focus {
                 Panel::Members | Panel::Representation => Panel::Combinations,
                 p => p,
             };
+            // the mode table is wide: Normal modes gets three fifths
+            let share = if last == Panel::Vibrations { 8 } else { 11 };
+            let (left, right) = split_h(body, body.width * share / 20);
             let mut v = stacked(left, grid_rows);
             v.push(Tile {
                 panel: last,
@@ -80,7 +82,7 @@ pub fn tiles(
             let (left, rest) = split_h(body, body.width * 2 / 5);
             let (mid, right) = split_h(rest, rest.width / 2);
             let last = match focus {
-                Panel::Group | Panel::Molecule => focus,
+                Panel::Group | Panel::Molecule | Panel::Vibrations => focus,
                 _ => Panel::Spectra,
             };
             let mut v = stacked(left, grid_rows);

@@ -54,13 +54,12 @@ pub fn theme(app: &App) -> Theme {
 pub fn tab_ranges(app: &App, area: Rect) -> Vec<(Panel, u16, u16)> {
     let mut x = area.x;
     let mut out = Vec::new();
-    for p in Panel::ALL {
+    for p in app.panels() {
         let t = tab_text(p, area.width);
         let w = width(&t) as u16;
         out.push((p, x, x + w));
         x += w + 1;
     }
-    let _ = app;
     out
 }
 
@@ -112,6 +111,7 @@ fn pane(f: &mut Frame, p: Panel, area: Rect, app: &App, th: &Theme) {
         Panel::Combinations => panels::combinations::draw(f, area, app, th),
         Panel::Spectra => panels::spectra::draw(f, area, app, th),
         Panel::Molecule => panels::molecule::draw(f, area, app, th),
+        Panel::Vibrations => panels::vibrations::draw_app(f, area, app, th),
     }
 }
 

@@ -4,6 +4,8 @@
 //! and the assignment of the session's bands. The rendering is the report's
 //! (`report::vibrations`), so the pane and the exported report never disagree.
 
+use super::super::action::Panel;
+use super::super::app::App;
 use super::super::theme::Theme;
 use super::{block, styled, wrap_folded};
 use crate::analysis::Analysis;
@@ -60,6 +62,23 @@ pub fn lines(a: &Analysis, th: &Theme, width: usize) -> Vec<Line<'static>> {
         }
     }
     out
+}
+
+/// Draw the pane for the workspace: the analysis's modes, or why there are none yet.
+pub fn draw_app(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
+    match &app.analysis {
+        Ok(a) => draw(f, area, a, app.scroll_of(Panel::Vibrations), th),
+        Err(e) => {
+            let b = block("Normal modes", th);
+            let inner = b.inner(area);
+            f.render_widget(b, area);
+            let ls: Vec<Line<'static>> = wrap_folded(th, &e.to_string(), inner.width as usize)
+                .iter()
+                .map(|l| styled(l, th.warn(), th))
+                .collect();
+            f.render_widget(Paragraph::new(ls), inner);
+        }
+    }
 }
 
 /// Draw the pane, scrolled by `scroll` lines.
