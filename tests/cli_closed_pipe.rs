@@ -136,17 +136,6 @@ const CASES: &[(&str, &[&str])] = &[
         "build",
         &["Oh", "--sites", "C@general1:3.1,20,10 N@general1:4.2,35,25"],
     ),
-    ("normal-modes", &["{repo}/tests/fixtures/vib/benzene.json"]),
-    (
-        "normal-modes",
-        &[
-            "{repo}/tests/fixtures/vib/sf6.json",
-            "--format",
-            "json",
-            "--isotope",
-            "S=34S",
-        ],
-    ),
 ];
 
 fn salcdesk() -> Command {
