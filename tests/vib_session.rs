@@ -71,6 +71,10 @@ fn session_names_a_hessian_and_every_face_shows_it() {
     assert!(text.contains("Teller–Redlich"), "{text}");
     let md = render(&s, &a, Format::Markdown, false);
     assert!(md.contains("| # | ν | cm⁻¹ |"), "{md}");
+    // LaTeX: the mode table as a real tabular, no Markdown pipes left.
+    let tex = render(&s, &a, Format::Latex, false);
+    assert!(tex.contains("Normal modes"), "{tex}");
+    assert!(tex.contains("\\toprule") && !tex.contains("| # |"), "{tex}");
     let json: serde_json::Value =
         serde_json::from_str(&render(&s, &a, Format::Json, false)).unwrap();
     let modes = &json["vibrations"]["modes"];

@@ -382,6 +382,11 @@ fn latex(s: &Session, a: &Result<Analysis, Error>) -> String {
                 }
             }
             o.push_str(&super::molecule::render(a, Format::Latex, false));
+            // Normal modes: the same Markdown section as the Markdown report, typeset.
+            let vib = super::vibrations::session_section(a, true, false);
+            if !vib.trim().is_empty() {
+                o.push_str(&super::latex::from_markdown(&vib));
+            }
             for (name, m) in missing(a) {
                 o.push_str(&format!("\\subsection*{{{name}}}\n{}.\n", latex_escape(m)));
             }
