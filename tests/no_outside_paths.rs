@@ -1,7 +1,8 @@
 //! No test, bench, fuzz target or library code may read anything outside the repository
 //! except temporary files it makes itself: a fresh clone must pass `cargo test` anywhere. This
 //! scans every `.rs` file under src/, tests/, benches/ and fuzz/ for string literals holding
-//! an absolute path (`"/work/…"`, `"/tmp/…"`, `r"/home/…"`) and fails naming file:line.
+//! an absolute path (a quoted literal that starts with a slash and names a folder such as work,
+//! tmp or home, raw strings included) and fails naming file:line.
 //!
 //! Allowed, because they must be absolute: `/dev/null`; `/dev/tty` (the workspace's terminal
 //! when standard input is not one); `/proc/…` (the pty tests read the CPU time of their own
