@@ -8,7 +8,7 @@
 mod molecules;
 
 use criterion::{criterion_group, criterion_main, Criterion};
-use salcdesk::basis::{self, Placed, Structure};
+use salcdesk::basis::{self, Structure};
 use salcdesk::{geom, group, salc};
 use std::time::{Duration, Instant};
 
@@ -59,17 +59,7 @@ fn all_bases(text: &str) -> usize {
         .map(|(c, o)| (c, g.ops[o].float))
         .collect();
     let oriented = geom::orient(&mol, &det, &reps).unwrap();
-    let atoms = oriented
-        .molecule
-        .atoms
-        .iter()
-        .map(|a| Placed {
-            symbol: a.symbol().to_string(),
-            position: a.position,
-        })
-        .collect();
-    let slack = tol.max(2.0 * det.max_deviation + tol);
-    let s = Structure::new(g, atoms, bonds, slack).unwrap();
+    let s = Structure::from_oriented(g, &oriented.molecule, bonds, tol, det.max_deviation).unwrap();
     let mut n = 0;
     if let Ok(set) = salc::symmetry_coordinates(&s) {
         n += set.salcs.len();

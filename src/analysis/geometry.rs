@@ -3,7 +3,7 @@
 //! stretch SALCs of each bond set. Both are cached by geometry and tolerance, so keystrokes
 //! that do not touch the geometry cost a lookup. Bad input becomes a located message.
 
-use crate::basis::{self, Placed, Structure};
+use crate::basis::{self, Structure};
 use crate::geom::{self, Molecule};
 use crate::salc::{self, SalcSet};
 use crate::session::{Geometry, GeometrySource, Session};
@@ -167,20 +167,14 @@ fn bond_salcs(s: &Survey) -> Result<Vec<BondSalcs>, String> {
     if s.bonds.is_empty() {
         return Ok(Vec::new());
     }
-    let atoms: Vec<Placed> = s
-        .oriented
-        .molecule
-        .atoms
-        .iter()
-        .map(|a| Placed {
-            symbol: a.symbol().to_string(),
-            position: a.position,
-        })
-        .collect();
-    let tol = s.detection.tolerance;
-    let slack = tol.max(2.0 * s.detection.max_deviation + tol);
-    let st = Structure::new(s.working.clone(), atoms, s.bonds.clone(), slack)
-        .map_err(|e| e.to_string())?;
+    let st = Structure::from_oriented(
+        s.working.clone(),
+        &s.oriented.molecule,
+        s.bonds.clone(),
+        s.detection.tolerance,
+        s.detection.max_deviation,
+    )
+    .map_err(|e| e.to_string())?;
     let all = basis::stretches(&st, &st.bonds).map_err(|e| e.to_string())?;
     Ok(basis::bond_sets(&st)
         .into_iter()

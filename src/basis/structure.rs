@@ -33,6 +33,27 @@ pub struct Structure {
 }
 
 impl Structure {
+    /// A molecule already in the group's standard orientation (`geom::orient`), matched with a
+    /// slack that covers the detection's largest deviation: max(tol, 2·deviation + tol) Å.
+    pub fn from_oriented(
+        group: Arc<PointGroup>,
+        molecule: &crate::geom::Molecule,
+        bonds: Vec<(usize, usize)>,
+        tolerance: f64,
+        max_deviation: f64,
+    ) -> Result<Self, BasisError> {
+        let atoms = molecule
+            .atoms
+            .iter()
+            .map(|a| Placed {
+                symbol: a.symbol().to_string(),
+                position: a.position,
+            })
+            .collect();
+        let slack = tolerance.max(2.0 * max_deviation + tolerance);
+        Self::new(group, atoms, bonds, slack)
+    }
+
     /// Place atoms in a finite group and find every operation's permutation.
     pub fn new(
         group: Arc<PointGroup>,

@@ -127,17 +127,8 @@ fn file_structure(path: &str, tol: f64) -> Result<(Structure, Vec<String>), CliE
         .map(|(c, o)| (c, g.ops[o].float))
         .collect();
     let oriented = geom::orient(&mol, &det, &reps).map_err(|e| input(format!("{path}: {e}")))?;
-    let atoms = oriented
-        .molecule
-        .atoms
-        .iter()
-        .map(|a| Placed {
-            symbol: a.symbol().to_string(),
-            position: a.position,
-        })
-        .collect();
-    let slack = tol.max(2.0 * det.max_deviation + tol);
-    let s = Structure::new(g, atoms, bonds, slack).map_err(|e| input(format!("{path}: {e}")))?;
+    let s = Structure::from_oriented(g, &oriented.molecule, bonds, tol, det.max_deviation)
+        .map_err(|e| input(format!("{path}: {e}")))?;
     Ok((s, notes))
 }
 
