@@ -26,7 +26,10 @@ fn main() {
         eprintln!("{}: {e}", dir.display());
         std::process::exit(1);
     }
-    for (name, mol, group) in molecules::timing_clusters() {
+    let mut all = molecules::timing_clusters();
+    // C60 for the whole-process SALC timings (salc c60.xyz --basis stretch / cartesian)
+    all.push(("c60", molecules::c60(), "Ih"));
+    for (name, mol, group) in all {
         let turned = molecules::scramble(&mol, 11, 0.0);
         for (file, m) in [
             (format!("{name}.xyz"), &mol),
