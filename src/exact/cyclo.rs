@@ -6,19 +6,26 @@
 //! modulo Φₙ, which makes the representation unique for a given n. Two elements with different n
 //! are compared and combined in Q(ζ_lcm). Rationals are kept with n = 1, the cheap common case.
 
-use super::poly::{gcd, lcm, reduce, totient};
+use super::poly::{
+    from_integer_form, gcd, integer_form, lcm, reduce, reduce_int, totient, Coeffs, Ints,
+};
 use super::rat::Rat;
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::{ToPrimitive, Zero};
+use smallvec::smallvec;
 use std::fmt;
 use std::ops::{Add, AddAssign, Div, Mul, Neg, Sub, SubAssign};
+
+/// Identifies a [`Cyclo`] exactly (hashable), for memo tables.
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
+pub struct CycloKey(u32, Coeffs);
 
 /// An exact cyclotomic number.
 #[derive(Clone)]
 pub struct Cyclo {
     n: u32,
-    coeffs: Vec<Rat>,
+    coeffs: Coeffs,
 }
 
 impl Cyclo {
@@ -42,13 +49,13 @@ impl Cyclo {
     pub fn from_rational(r: BigRational) -> Self {
         Cyclo {
             n: 1,
-            coeffs: vec![Rat::from_big(r)],
+            coeffs: smallvec![Rat::from_big(r)],
         }
     }
     fn from_rat(r: Rat) -> Self {
         Cyclo {
             n: 1,
-            coeffs: vec![r],
+            coeffs: smallvec![r],
         }
     }
 
@@ -106,10 +113,33 @@ impl Cyclo {
             self.n = 1;
             return;
         }
+        if self.n % 4 == 2 {
+            // Q(ζ₂ₘ) = Q(ζₘ) for odd m, with ζ₂ₘ = −ζₘ^((m+1)/2) (ζ₂ₘᵐ = −1): one field, one
+            // form, so products and sums of such numbers need no lifting.
+            let m = self.n / 2;
+            let e = (m as usize).div_ceil(2);
+            let mut dense = vec![Rat::ZERO; m as usize];
+            for (k, c) in self.coeffs.iter().enumerate() {
+                if c.is_zero() {
+                    continue;
+                }
+                let idx = (k * e) % m as usize;
+                dense[idx] = if k % 2 == 1 {
+                    &dense[idx] - c
+                } else {
+                    &dense[idx] + c
+                };
+            }
+            self.n = m;
+            self.coeffs = reduce(dense, m);
+            if m == 1 {
+                return;
+            }
+        }
         if self.coeffs.iter().skip(1).all(|c| c.is_zero()) {
             let c0 = self.coeffs[0].clone();
             self.n = 1;
-            self.coeffs = vec![c0];
+            self.coeffs = smallvec![c0];
         }
     }
 
@@ -123,11 +153,66 @@ impl Cyclo {
         self.coeffs.iter().map(Rat::to_big).collect()
     }
 
+    /// A key that identifies the number (its field and coefficients), for memo tables.
+    pub fn key(&self) -> CycloKey {
+        CycloKey(self.n, self.coeffs.clone())
+    }
+
+    /// The positive rational c such that c·v has coprime integer coordinates (the lcm of the
+    /// coefficient denominators over the gcd of the numerators); `None` for the zero vector.
+    pub fn primitive_factor(v: &[Cyclo]) -> Option<BigRational> {
+        let mut l: i64 = 1;
+        let mut g: i64 = 0;
+        let mut small = true;
+        'scan: for c in v {
+            for q in &c.coeffs {
+                match q {
+                    Rat::S(0, _) => {}
+                    Rat::S(n, d) => {
+                        let Some(nl) = l.checked_mul(d / super::rat::gcd_i64(l, *d)) else {
+                            small = false;
+                            break 'scan;
+                        };
+                        l = nl;
+                        g = if g == 0 {
+                            n.unsigned_abs().min(i64::MAX as u64) as i64
+                        } else {
+                            super::rat::gcd_i64(g, n.unsigned_abs().min(i64::MAX as u64) as i64)
+                        };
+                        if *n == i64::MIN {
+                            small = false;
+                            break 'scan;
+                        }
+                    }
+                    Rat::B(_) => {
+                        small = false;
+                        break 'scan;
+                    }
+                }
+            }
+        }
+        if small {
+            return (g != 0).then(|| BigRational::new(BigInt::from(l), BigInt::from(g)));
+        }
+        let mut l = BigInt::from(1);
+        let mut g = BigInt::zero();
+        for c in v {
+            for q in c.coefficients() {
+                if q.is_zero() {
+                    continue;
+                }
+                l = num_integer::Integer::lcm(&l, q.denom());
+                g = num_integer::Integer::gcd(&g, q.numer());
+            }
+        }
+        (!g.is_zero()).then(|| BigRational::new(l, num_traits::Signed::abs(&g)))
+    }
+
     /// Express in Q(ζₘ) for a multiple m of n: dense coefficient vector of length φ(m).
     pub fn lift(&self, m: u32) -> Vec<BigRational> {
         self.lift_rat(m).iter().map(Rat::to_big).collect()
     }
-    fn lift_rat(&self, m: u32) -> Vec<Rat> {
+    fn lift_rat(&self, m: u32) -> Coeffs {
         if m == self.n {
             return self.coeffs.clone();
         }
@@ -314,8 +399,29 @@ impl Cyclo {
     }
 
     fn combine(&self, other: &Self, sign: bool) -> Self {
+        if other.is_zero() {
+            return self.clone();
+        }
+        if self.is_zero() {
+            return if sign { other.clone() } else { -other };
+        }
+        // a rational plus an element of Q(ζₙ): only the coefficient of 1 = ζ⁰ changes
+        if self.n == 1 && other.n != 1 {
+            let mut c = if sign { other.clone() } else { -other };
+            c.coeffs[0] = &c.coeffs[0] + &self.coeffs[0];
+            return c;
+        }
+        if other.n == 1 && self.n != 1 {
+            let mut c = self.clone();
+            c.coeffs[0] = if sign {
+                &c.coeffs[0] + &other.coeffs[0]
+            } else {
+                &c.coeffs[0] - &other.coeffs[0]
+            };
+            return c;
+        }
         if self.n == other.n {
-            let coeffs: Vec<Rat> = self
+            let coeffs: Coeffs = self
                 .coeffs
                 .iter()
                 .zip(&other.coeffs)
@@ -359,6 +465,11 @@ impl Cyclo {
             lb = other.lift_rat(m);
             &lb
         };
+        if let Some(c) = multiply_small(a, b, m) {
+            let mut c = Cyclo { n: m, coeffs: c };
+            c.normalize();
+            return c;
+        }
         let mut dense = vec![Rat::ZERO; a.len() + b.len()];
         for (i, x) in a.iter().enumerate() {
             if x.is_zero() {
@@ -433,26 +544,59 @@ impl Cyclo {
         if self.n % m != 0 || m == self.n {
             return None;
         }
+        if m <= 2 {
+            // rationals are always stored with n = 1 (see `normalize`)
+            return None;
+        }
         // Solve for coefficients in Q(ζₘ): the lift of the power basis of Q(ζₘ) is linearly
         // independent; test membership by Gaussian elimination.
         let phi_m = totient(m);
-        let basis: Vec<Vec<BigRational>> = (0..phi_m)
-            .map(|k| Cyclo::zeta(m, k as i64).lift(self.n))
+        let basis: Vec<Vec<Rat>> = (0..phi_m)
+            .map(|k| Cyclo::zeta(m, k as i64).lift_rat(self.n))
+            .map(|c| c.to_vec())
             .collect();
-        let sol = super::linsolve::solve(&basis, &self.coefficients())?;
+        let sol = super::linsolve::solve_rat(&basis, &self.coeffs)?;
         let mut c = Cyclo {
             n: m,
-            coeffs: sol.into_iter().map(Rat::from_big).collect(),
+            coeffs: sol.into_iter().collect(),
         };
         if m <= 2 {
             c = Cyclo {
                 n: 1,
-                coeffs: vec![c.coeffs[0].clone()],
+                coeffs: smallvec![c.coeffs[0].clone()],
             };
         }
         c.normalize();
         Some(c)
     }
+}
+
+/// The product of two elements of Q(ζₘ) on the integer form (one common denominator each):
+/// an integer convolution and an integer reduction modulo Φₘ. `None` when a part does not fit
+/// (the caller then multiplies coefficient by coefficient with big rationals where needed).
+fn multiply_small(a: &[Rat], b: &[Rat], m: u32) -> Option<Coeffs> {
+    let (na, da) = integer_form(a)?;
+    let (nb, db) = integer_form(b)?;
+    // |Σ xᵢyⱼ| ≤ len·max|x|·max|y|: keep 2⁹⁶ of the 2¹²⁷ for that, the rest for the reduction
+    let ma = na.iter().map(|x| x.unsigned_abs()).max().unwrap_or(0);
+    let mb = nb.iter().map(|x| x.unsigned_abs()).max().unwrap_or(0);
+    let bound = ma
+        .checked_mul(mb)?
+        .checked_mul(na.len().min(nb.len()) as u128)?;
+    if bound >= 1u128 << 96 {
+        return None;
+    }
+    let mut dense: Ints = smallvec![0i128; na.len() + nb.len()];
+    for (i, &x) in na.iter().enumerate() {
+        if x == 0 {
+            continue;
+        }
+        for (j, &y) in nb.iter().enumerate() {
+            dense[i + j] += x * y;
+        }
+    }
+    let r = reduce_int(dense, m)?;
+    Some(from_integer_form(&r, da.checked_mul(db)?))
 }
 
 fn prime_factors(mut n: u32) -> Vec<u32> {

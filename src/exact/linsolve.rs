@@ -1,17 +1,27 @@
 //! Exact linear algebra over Q for coordinate vectors: solve Σ aⱼ·basisⱼ = target.
 
+use super::rat::Rat;
 use num_rational::BigRational;
-use num_traits::Zero;
 
 /// Rational coefficients a with Σ aⱼ basisⱼ = target, or `None` if target is not in the span.
 /// Basis vectors must be linearly independent and all of the target's length.
 pub fn solve(basis: &[Vec<BigRational>], target: &[BigRational]) -> Option<Vec<BigRational>> {
+    let basis: Vec<Vec<Rat>> = basis
+        .iter()
+        .map(|b| b.iter().cloned().map(Rat::from_big).collect())
+        .collect();
+    let target: Vec<Rat> = target.iter().cloned().map(Rat::from_big).collect();
+    solve_rat(&basis, &target).map(|v| v.iter().map(Rat::to_big).collect())
+}
+
+/// [`solve`] on machine-integer rationals where they fit (the common case).
+pub(super) fn solve_rat(basis: &[Vec<Rat>], target: &[Rat]) -> Option<Vec<Rat>> {
     let rows = target.len();
     let cols = basis.len();
     // Augmented matrix rows × (cols + 1).
-    let mut m: Vec<Vec<BigRational>> = (0..rows)
+    let mut m: Vec<Vec<Rat>> = (0..rows)
         .map(|r| {
-            let mut row: Vec<BigRational> = basis.iter().map(|b| b[r].clone()).collect();
+            let mut row: Vec<Rat> = basis.iter().map(|b| b[r].clone()).collect();
             row.push(target[r].clone());
             row
         })
@@ -25,14 +35,17 @@ pub fn solve(basis: &[Vec<BigRational>], target: &[BigRational]) -> Option<Vec<B
         m.swap(r, p);
         let inv = m[r][c].recip();
         for x in m[r].iter_mut() {
-            *x *= &inv;
+            *x = &*x * &inv;
         }
         for i in 0..rows {
             if i != r && !m[i][c].is_zero() {
                 let f = m[i][c].clone();
                 for j in c..=cols {
+                    if m[r][j].is_zero() {
+                        continue;
+                    }
                     let v = &m[r][j] * &f;
-                    m[i][j] -= v;
+                    m[i][j] = &m[i][j] - &v;
                 }
             }
         }
@@ -46,7 +59,7 @@ pub fn solve(basis: &[Vec<BigRational>], target: &[BigRational]) -> Option<Vec<B
     if m[r..].iter().any(|row| !row[cols].is_zero()) {
         return None;
     }
-    let mut sol = vec![BigRational::zero(); cols];
+    let mut sol = vec![Rat::ZERO; cols];
     for (i, &c) in pivot_cols.iter().enumerate() {
         sol[c] = m[i][cols].clone();
     }

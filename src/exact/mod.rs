@@ -16,7 +16,7 @@ mod print;
 mod rat;
 mod sqrt;
 
-pub use cyclo::{rational_to_f64, Cyclo};
+pub use cyclo::{rational_to_f64, Cyclo, CycloKey};
 pub use linsolve::{solve as solve_rational, solve_field};
 pub use parse::{parse, parse_with_phi, ParseError};
 pub use print::{decimal, format_rational};

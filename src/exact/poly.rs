@@ -4,6 +4,13 @@
 //! Source: Lang, *Algebra*, VI §3 (standard facts about cyclotomic polynomials).
 
 use super::rat::Rat;
+use smallvec::SmallVec;
+
+/// Power-basis coefficients of one number: four fit inline (Q, Q(√2), Q(√3), Q(√5), Q(i) and
+/// Q(ζ₃…₁₂) — the fields of most point groups), so most numbers need no heap allocation.
+pub type Coeffs = SmallVec<[Rat; 4]>;
+/// Integer numerators on the integer form.
+pub type Ints = SmallVec<[i128; 8]>;
 use std::collections::HashMap;
 use std::sync::{Arc, Mutex, OnceLock};
 
@@ -105,7 +112,93 @@ fn divide_exact(num: &[i64], den: &[i64]) -> Vec<i64> {
 }
 
 /// Reduce a dense polynomial in ζₙ (any length) modulo Φₙ; returns φ(n) coefficients.
-pub fn reduce(mut coeffs: Vec<Rat>, n: u32) -> Vec<Rat> {
+pub fn reduce(coeffs: Vec<Rat>, n: u32) -> Coeffs {
+    if let Some((nums, den)) = integer_form(&coeffs) {
+        if let Some(r) = reduce_int(nums, n) {
+            return from_integer_form(&r, den);
+        }
+    }
+    reduce_general(coeffs, n).into_iter().collect()
+}
+
+/// Rationals over one common denominator: (numerators, denominator), when every part fits
+/// 64 bits. Most numbers salcdesk meets (characters, matrix entries, SALC coefficients) have
+/// small common denominators, so arithmetic on this form needs one gcd per result instead of
+/// one per coefficient and no big integers.
+pub fn integer_form(c: &[Rat]) -> Option<(Ints, i128)> {
+    let mut den: i64 = 1;
+    for r in c {
+        match r {
+            Rat::S(_, d) => {
+                if *d != 1 && den % d != 0 {
+                    let g = super::rat::gcd_i64(den, *d);
+                    den = den.checked_mul(d / g)?;
+                }
+            }
+            Rat::B(_) => return None,
+        }
+    }
+    let nums = c
+        .iter()
+        .map(|r| match r {
+            Rat::S(n, d) => (*n as i128).checked_mul((den / d) as i128),
+            Rat::B(_) => None,
+        })
+        .collect::<Option<Ints>>()?;
+    Some((nums, den as i128))
+}
+
+/// Back from the integer form, each coefficient in lowest terms.
+pub fn from_integer_form(nums: &[i128], den: i128) -> Coeffs {
+    nums.iter()
+        .map(|&x| {
+            if x == 0 {
+                Rat::ZERO
+            } else {
+                Rat::from_i128(x, den)
+            }
+        })
+        .collect()
+}
+
+/// Integer numerators of a dense polynomial in ζₙ reduced modulo Φₙ (monic, integer), with
+/// checked arithmetic: `None` on overflow (the caller then takes the general path).
+pub fn reduce_int(mut coeffs: Ints, n: u32) -> Option<Ints> {
+    let phi = cyclotomic(n);
+    let deg = phi.len() - 1;
+    let nn = n as usize;
+    if coeffs.len() > nn {
+        for k in nn..coeffs.len() {
+            let c = coeffs[k];
+            if c != 0 {
+                coeffs[k % nn] = coeffs[k % nn].checked_add(c)?;
+            }
+        }
+        coeffs.truncate(nn);
+    }
+    for top in (deg..coeffs.len()).rev() {
+        let c = std::mem::replace(&mut coeffs[top], 0);
+        if c == 0 {
+            continue;
+        }
+        let shift = top - deg;
+        for (j, &pj) in phi.iter().enumerate().take(deg) {
+            match pj {
+                0 => {}
+                1 => coeffs[shift + j] = coeffs[shift + j].checked_sub(c)?,
+                -1 => coeffs[shift + j] = coeffs[shift + j].checked_add(c)?,
+                p => {
+                    coeffs[shift + j] = coeffs[shift + j].checked_sub(c.checked_mul(p as i128)?)?
+                }
+            }
+        }
+    }
+    coeffs.resize(deg, 0);
+    Some(coeffs)
+}
+
+/// The general reduction, coefficient by coefficient (big rationals where needed).
+fn reduce_general(mut coeffs: Vec<Rat>, n: u32) -> Vec<Rat> {
     let phi = cyclotomic(n);
     let deg = phi.len() - 1;
     // First fold exponents ≥ n using ζⁿ = 1.

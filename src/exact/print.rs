@@ -23,10 +23,10 @@ pub fn format(x: &Cyclo, nt: Notation) -> String {
     // few values many times, so irrational results are remembered (bounded).
     use std::collections::HashMap;
     use std::sync::{Mutex, OnceLock};
-    type Key = (u32, Vec<BigRational>, bool);
+    type Key = (super::CycloKey, bool);
     static MEMO: OnceLock<Mutex<HashMap<Key, String>>> = OnceLock::new();
     let memo = MEMO.get_or_init(|| Mutex::new(HashMap::new()));
-    let key = (x.field_order(), x.coefficients(), nt == Notation::Ascii);
+    let key = (x.key(), nt == Notation::Ascii);
     if let Some(s) = memo.lock().expect("print memo").get(&key) {
         return s.clone();
     }

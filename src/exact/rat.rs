@@ -9,7 +9,7 @@ use std::ops::{Add, Mul, Neg, Sub};
 
 /// An exact rational. Invariant: `S(n, d)` has d > 0 and gcd(n, d) = 1; `B` is used only when
 /// the value does not fit `S`.
-#[derive(Clone, Debug, PartialEq, Eq)]
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
 pub enum Rat {
     S(i64, i64),
     B(Box<BigRational>),
@@ -22,6 +22,11 @@ fn gcd_u128(mut a: u128, mut b: u128) -> u128 {
         b = t;
     }
     a
+}
+
+/// gcd of two positive 64-bit integers.
+pub(super) fn gcd_i64(a: i64, b: i64) -> i64 {
+    gcd_u64(a.unsigned_abs(), b.unsigned_abs()) as i64
 }
 
 /// Binary (Stein) gcd.
@@ -52,7 +57,7 @@ impl Rat {
         Rat::S(i, 1)
     }
     /// n/d from 128-bit parts (d ≠ 0), reduced; big when it does not fit.
-    fn from_i128(n: i128, d: i128) -> Rat {
+    pub(super) fn from_i128(n: i128, d: i128) -> Rat {
         let (n, d) = if d < 0 { (-n, -d) } else { (n, d) };
         // The common case: both parts fit 64 bits, where a binary gcd is far cheaper than
         // 128-bit division.

@@ -21,6 +21,7 @@ pub use table::{
 };
 
 use nalgebra::Matrix3;
+use std::collections::HashMap;
 use std::sync::OnceLock;
 
 /// Errors when loading a group.
@@ -41,6 +42,15 @@ pub struct PointGroup {
     /// Operations sorted by class (identity first). Empty for the linear groups.
     pub ops: Vec<SymOp>,
     products: OnceLock<Vec<Vec<usize>>>,
+    inverses: OnceLock<Vec<usize>>,
+    by_key: OnceLock<HashMap<[i32; 9], usize>>,
+}
+
+/// A hash key for an operation matrix: entries rounded to 1/1000 (the entries of point-group
+/// operations are cosines and sines of whole fractions of a turn, never near a rounding
+/// boundary of this grid in practice; a miss falls back to a full search).
+fn op_key(m: &Matrix3<f64>) -> [i32; 9] {
+    std::array::from_fn(|k| (m[(k / 3, k % 3)] * 1000.0).round() as i32)
 }
 
 impl PointGroup {
@@ -59,6 +69,8 @@ impl PointGroup {
             table,
             ops,
             products: OnceLock::new(),
+            inverses: OnceLock::new(),
+            by_key: OnceLock::new(),
         })
     }
 
@@ -81,9 +93,25 @@ impl PointGroup {
     }
     /// Index of the operation with this floating-point matrix (tolerance 1e-6).
     pub fn op_index(&self, m: &Matrix3<f64>) -> Option<usize> {
+        if let Some(&o) = self.lookup().get(&op_key(m)) {
+            if (self.ops[o].float - m).abs().max() < 1e-6 {
+                return Some(o);
+            }
+        }
+        // an entry next to a rounding boundary of the key: look through every operation
         self.ops
             .iter()
             .position(|o| (o.float - m).abs().max() < 1e-6)
+    }
+    /// Operations by their rounded matrices (see [`op_key`]), built once.
+    fn lookup(&self) -> &HashMap<[i32; 9], usize> {
+        self.by_key.get_or_init(|| {
+            let mut map = HashMap::with_capacity(self.ops.len());
+            for (i, o) in self.ops.iter().enumerate() {
+                map.entry(op_key(&o.float)).or_insert(i);
+            }
+            map
+        })
     }
     /// Multiplication table: `product(a, b)` = index of ops[a]·ops[b].
     pub fn product(&self, a: usize, b: usize) -> usize {
@@ -104,8 +132,14 @@ impl PointGroup {
     }
     /// Index of the inverse of ops[a].
     pub fn inverse(&self, a: usize) -> usize {
-        self.op_index(&self.ops[a].float.transpose())
-            .expect("group contains inverses")
+        self.inverses.get_or_init(|| {
+            (0..self.ops.len())
+                .map(|x| {
+                    self.op_index(&self.ops[x].float.transpose())
+                        .expect("group contains inverses")
+                })
+                .collect()
+        })[a]
     }
     /// The character of irrep `i` on operation `op`.
     pub fn character(&self, irrep: usize, op: usize) -> &crate::exact::Cyclo {

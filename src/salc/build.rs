@@ -12,11 +12,10 @@ use super::project::{inverses, partner_one_images, transfer};
 use crate::basis::{Basis, Member};
 use crate::exact::{solve_field, Cyclo};
 use crate::group::PointGroup;
-use num_bigint::BigInt;
-use num_integer::Integer;
 use num_rational::BigRational;
-use num_traits::{One, Signed, Zero};
+use num_traits::One;
 use std::sync::Arc;
+use std::time::{Duration, Instant};
 
 /// What a SALC is, beyond its symmetry.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -94,6 +93,39 @@ pub enum SalcError {
     NoIrrep(String),
     #[error("{0}")]
     Other(String),
+    #[error(
+        "exact SALCs stopped after {seconds} s at {irrep}: the exact numbers grew too large \
+         (the group, Γ and the multiplicities are not affected)"
+    )]
+    Ceiling { irrep: String, seconds: f64 },
+}
+
+/// How long one exact SALC computation may run before it stops with [`SalcError::Ceiling`]:
+/// every command must answer within 2 s, so the exact engine gets 1.5 s of it.
+pub const EXACT_CEILING: Duration = Duration::from_millis(1500);
+
+/// The running clock of one SALC computation.
+struct Ceiling {
+    start: Instant,
+    limit: Duration,
+}
+
+impl Ceiling {
+    fn new() -> Self {
+        Ceiling {
+            start: Instant::now(),
+            limit: EXACT_CEILING,
+        }
+    }
+    fn check(&self, irrep: &str) -> Result<(), SalcError> {
+        if self.start.elapsed() > self.limit {
+            return Err(SalcError::Ceiling {
+                irrep: irrep.to_string(),
+                seconds: self.limit.as_secs_f64(),
+            });
+        }
+        Ok(())
+    }
 }
 
 /// Copies of each real irrep in a basis.
@@ -118,14 +150,16 @@ pub fn salcs_with_seeds(
     let inv = inverses(b);
     let reps: Vec<usize> = b.site_orbits().iter().map(|o| o[0]).collect();
     let mut out = Vec::new();
+    let clock = Ceiling::new();
     for (x, ir) in irreps.iter().enumerate() {
         let n = mult[x] as usize;
         if n == 0 || only.is_some_and(|o| o != x) {
             continue;
         }
-        let firsts = partner_ones(b, ir, &inv, &reps, seeds, x, n)?;
+        let firsts = partner_ones(b, ir, &inv, &reps, seeds, x, n, &clock)?;
         let recipe = PartnerRecipe::new(ir);
         for (c, (s1, role)) in firsts.into_iter().enumerate() {
+            clock.check(&ir.label)?;
             let tuple = recipe.partners(b, s1);
             let tuple = tidy_tuple(tuple);
             for (p, v) in tuple.into_iter().enumerate() {
@@ -158,15 +192,19 @@ pub fn salcs_with_seeds(
     })
 }
 
+/// Σ aᵢbᵢ. SALC vectors are real (real irreps acting on real bases), so no conjugation.
 fn dot(a: &[Cyclo], b: &[Cyclo]) -> Cyclo {
-    a.iter()
-        .zip(b)
-        .filter(|(x, y)| !x.is_zero() && !y.is_zero())
-        .map(|(x, y)| x * &y.conj())
-        .sum()
+    let mut acc = Cyclo::zero();
+    for (x, y) in a.iter().zip(b) {
+        if !x.is_zero() && !y.is_zero() {
+            acc += &(x * y);
+        }
+    }
+    acc
 }
 
 /// Exactly n orthogonal partner-1 vectors, seeds first.
+#[allow(clippy::too_many_arguments)]
 fn partner_ones(
     b: &Basis,
     ir: &RealIrrep,
@@ -175,19 +213,26 @@ fn partner_ones(
     seeds: &[Seed],
     x: usize,
     n: usize,
+    clock: &Ceiling,
 ) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
     let mut found: Vec<(Vec<Cyclo>, Role)> = Vec::new();
     // Everything new vectors must be orthogonal to. For a complex pair (¹E + ²E taken as one
     // real irrep) the commutant is C, not R: P₁₁ is the identity on the whole isotypic part,
     // any vector u there is a first partner, and u must be orthogonal to both partners of the
-    // copies already found.
+    // copies already found. Each is kept with 1/(its length²), computed once.
     let mut ortho: Vec<(Vec<Cyclo>, Cyclo)> = Vec::new();
+    let inv_len2 = |v: &[Cyclo]| {
+        dot(v, v)
+            .inv()
+            .expect("a nonzero real vector has length² > 0")
+    };
     let complex_type = ir.pair.is_some();
     let recipe = PartnerRecipe::new(ir);
     let mut offer = |v: Vec<Cyclo>, role: Role, found: &mut Vec<(Vec<Cyclo>, Role)>| {
         let mut v = v;
         for (c, nc) in &ortho {
-            let f = &dot(&v, c) / nc;
+            // nc = 1/(c·c)
+            let f = &dot(&v, c) * nc;
             if !f.is_zero() {
                 for (vi, ci) in v.iter_mut().zip(c) {
                     if !ci.is_zero() {
@@ -202,11 +247,11 @@ fn partner_ones(
         let v = tidy(v);
         if complex_type {
             for p in recipe.partners(b, v.clone()).into_iter().skip(1) {
-                let n = dot(&p, &p);
+                let n = inv_len2(&p);
                 ortho.push((p, n));
             }
         }
-        ortho.push((v.clone(), dot(&v, &v)));
+        ortho.push((v.clone(), inv_len2(&v)));
         found.push((v, role));
     };
     for seed in seeds.iter().filter(|s| s.irreps.contains(&x)) {
@@ -225,6 +270,7 @@ fn partner_ones(
                 if found.len() == n {
                     break 'outer;
                 }
+                clock.check(&ir.label)?;
                 offer(v, Role::Plain, &mut found);
             }
         }
@@ -305,44 +351,29 @@ impl PartnerRecipe {
     }
 }
 
-/// Rational coordinates of all entries: (lcm of denominators, gcd of numerators).
-fn content(v: &[Cyclo]) -> (BigInt, BigInt) {
-    let mut l = BigInt::one();
-    let mut g = BigInt::zero();
-    for c in v {
-        for q in c.coefficients() {
-            if q.is_zero() {
-                continue;
-            }
-            l = l.lcm(q.denom());
-            g = g.gcd(q.numer());
-        }
-    }
-    (l, g)
-}
-
 fn scale_rational(v: Vec<Cyclo>, r: &BigRational) -> Vec<Cyclo> {
     v.into_iter().map(|c| c.scale(r)).collect()
 }
 
 /// Clear common denominators and content by a positive rational factor.
 fn tidy(v: Vec<Cyclo>) -> Vec<Cyclo> {
-    let (l, g) = content(&v);
-    if g.is_zero() {
-        return v;
+    match Cyclo::primitive_factor(&v) {
+        Some(r) if !r.is_one() => scale_rational(v, &r),
+        _ => v,
     }
-    scale_rational(v, &BigRational::new(l, g.abs()))
 }
 
 /// Tidy a partner tuple by one common positive factor (keeps R·sⱼ = Σ sᵢ Dᵢⱼ), sign so that the
 /// first partner's first nonzero coefficient is positive.
 fn tidy_tuple(t: Vec<Vec<Cyclo>>) -> Vec<Vec<Cyclo>> {
     let all: Vec<Cyclo> = t.iter().flatten().cloned().collect();
-    let (l, g) = content(&all);
-    let mut r = BigRational::new(l, g.abs().max(BigInt::one()));
+    let mut r = Cyclo::primitive_factor(&all).unwrap_or_else(BigRational::one);
     let first = t[0].iter().find(|c| !c.is_zero());
     if first.is_some_and(|c| c.signum_real() < 0) {
         r = -r;
+    }
+    if r.is_one() {
+        return t;
     }
     t.into_iter().map(|v| scale_rational(v, &r)).collect()
 }

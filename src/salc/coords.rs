@@ -4,7 +4,7 @@
 //!
 //! Rotations depend on the geometry: each set of equivalent atoms is idealized exactly — the
 //! representative position is written in an exact basis of its site group's fixed space, its
-//! coordinates rounded to nearby fractions (within 1e-4 Å), and carried to the other atoms by
+//! coordinates rounded to a common grid (each atom moves by at most 0.005 Å), and carried to the other atoms by
 //! exact operations — so the rotation vectors eᵢ × r_a are exact (Wilson, Decius & Cross,
 //! *Molecular Vibrations*, §2-6 and ch. 6).
 
@@ -75,11 +75,29 @@ pub fn exact_positions(s: &Structure) -> Result<Vec<Vec3>, SalcError> {
                 .svd(true, true)
                 .solve(&pv, 1e-12)
                 .map_err(|e| SalcError::Other(e.to_string()))?;
+            // One grid for every coordinate: steps of 1/(100·⌈|b|⌉) along b, so each position
+            // moves by at most 0.005 Å and all positions share a few small denominators. Finer
+            // or per-number fractions make the rotation vectors' denominators multiply across
+            // atoms, and the exact orthogonalization against them blow up in size and time.
+            let steps: Vec<i64> = basis
+                .iter()
+                .map(|b| {
+                    let len = b.iter().map(|x| x.re_f64().powi(2)).sum::<f64>().sqrt();
+                    100 * (len.ceil() as i64).max(1)
+                })
+                .collect();
             std::array::from_fn(|i| {
                 basis
                     .iter()
                     .zip(alpha.iter())
-                    .map(|(b, a)| b[i].scale(&nearby_fraction(*a, 1e-4)))
+                    .zip(&steps)
+                    .map(|((b, a), &k)| {
+                        let q = BigRational::new(
+                            BigInt::from((a * k as f64).round() as i64),
+                            BigInt::from(k),
+                        );
+                        b[i].scale(&q)
+                    })
                     .sum()
             })
         };
@@ -144,7 +162,7 @@ pub fn symmetry_coordinates(s: &Structure) -> Result<SalcSet, SalcError> {
     }
     let mut set = salcs_with_seeds(&cart, &seeds, None)?;
     set.notes.push(
-        "rotations use positions idealized to exact symmetric values (fractions within 1e-4 Å)"
+        "rotations use positions idealized to exact symmetric values (on a grid of 0.01 Å or finer)"
             .into(),
     );
     Ok(set)

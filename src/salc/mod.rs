@@ -15,7 +15,7 @@ mod render;
 
 pub use build::{
     display_form, real_multiplicities, salcs, salcs_with_seeds, Role, Salc, SalcError, SalcSet,
-    Seed,
+    Seed, EXACT_CEILING,
 };
 pub use coords::{
     central_matches, exact_positions, internal_coordinates, nearby_fraction, symmetry_coordinates,
