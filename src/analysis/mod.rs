@@ -157,7 +157,13 @@ pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Resul
         .then(|| vibrational_source(&g, &sets, geometry.as_ref()))
         .flatten()
         .map(|(source, group, rows)| {
-            spectra::predict(source, &group, &rows, &observed_bands(session))
+            spectra::predict(
+                source,
+                &group,
+                &rows,
+                &observed_bands(session),
+                &session.nu_positions,
+            )
         });
     Ok(Analysis {
         group: g,

@@ -25,7 +25,7 @@ pub struct SpectraAnalysis {
     pub check: Option<Result<BandCheck, String>>,
 }
 
-type Key = (String, Vec<u64>, String);
+type Key = (String, Vec<u64>, String, String);
 type Cache = Mutex<HashMap<Key, Arc<SpectraAnalysis>>>;
 
 fn cache() -> &'static Cache {
@@ -65,21 +65,45 @@ pub fn observed_bands(s: &Session) -> Vec<spectra::Band> {
         .collect()
 }
 
-/// Predictions for Γvib `rows` of group `g`, and the check of `bands` (cached).
+/// The fundamentals of Γvib, named ν1, ν2, … in the customary order, with the positions the
+/// session gives them (`[fundamentals]`, by ν number; numbers beyond Γvib are ignored here).
+/// The names stay those of the unplaced list, so a position never renumbers the modes.
+pub fn placed_fundamentals(
+    g: &PointGroup,
+    rows: &[u64],
+    positions: &[(usize, f64)],
+) -> Result<Vec<spectra::Fundamental>, spectra::SpectraError> {
+    let mut f = spectra::fundamentals_from_gamma(g, rows)?;
+    for &(n, p) in positions {
+        if let Some(x) = n.checked_sub(1).and_then(|k| f.get_mut(k)) {
+            x.position_cm = Some(p);
+        }
+    }
+    Ok(f)
+}
+
+/// Predictions for Γvib `rows` of group `g` with the fundamentals' positions, and the check
+/// of `bands` (cached).
 pub fn predict(
     source: String,
     g: &Arc<PointGroup>,
     rows: &[u64],
     bands: &[spectra::Band],
+    positions: &[(usize, f64)],
 ) -> Arc<SpectraAnalysis> {
-    let key = (g.name().to_string(), rows.to_vec(), format!("{bands:?}"));
+    let key = (
+        g.name().to_string(),
+        rows.to_vec(),
+        format!("{bands:?}"),
+        format!("{positions:?}"),
+    );
     if let Some(hit) = cache().lock().ok().and_then(|c| c.get(&key).cloned()) {
         if hit.source == source {
             return hit;
         }
     }
     let modes = spectra::modes_report(g, rows).map_err(|e| e.to_string());
-    let combinations = spectra::fundamentals_from_gamma(g, rows)
+    let combinations = placed_fundamentals(g, rows, positions)
         .and_then(|f| spectra::predict_combinations(g, &f, Default::default()))
         .map_err(|e| e.to_string());
     let check = (!bands.is_empty()).then(|| {

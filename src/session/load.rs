@@ -36,6 +36,8 @@ struct RawSession {
     #[serde(default, rename = "band")]
     bands: Vec<RawBand>,
     #[serde(default)]
+    fundamentals: Option<BTreeMap<Spanned<String>, Spanned<Num>>>,
+    #[serde(default)]
     vibrations: Option<Spanned<RawVibrations>>,
 }
 
@@ -247,6 +249,10 @@ pub fn parse(file: &str, text: &str) -> Result<Session, LoadError> {
     for b in &raw.bands {
         bands.push(band(b, &at)?);
     }
+    let nu_positions = match &raw.fundamentals {
+        None => Vec::new(),
+        Some(f) => nu_positions(f, &at)?,
+    };
     let vibrations = match &raw.vibrations {
         None => None,
         Some(v) => Some(super::vib_section::vibrations(v, &at)?),
@@ -258,6 +264,7 @@ pub fn parse(file: &str, text: &str) -> Result<Session, LoadError> {
         geometry,
         sets,
         bands,
+        nu_positions,
         notes: raw.notes,
         vibrations,
     })
@@ -491,6 +498,51 @@ fn member_atoms(
         m.atoms = Some(atoms);
     }
     Ok(())
+}
+
+/// `[fundamentals]`: `nu3 = 1020.0` gives ν3 a position in cm⁻¹ (numbers from 1, as the
+/// Spectra pane numbers the fundamentals; whether ν3 exists is for the analysis to say).
+fn nu_positions(
+    raw: &BTreeMap<Spanned<String>, Spanned<Num>>,
+    at: &At,
+) -> Result<Vec<(usize, f64)>, LoadError> {
+    let mut out: Vec<(usize, f64)> = Vec::with_capacity(raw.len());
+    // In file order, so that the first problem in the file is the one reported.
+    let mut named: Vec<_> = raw.iter().collect();
+    named.sort_by_key(|(k, _)| k.span().start);
+    for (k, v) in named {
+        let n = k
+            .get_ref()
+            .strip_prefix("nu")
+            .and_then(|d| d.parse::<usize>().ok())
+            .filter(|&n| n >= 1);
+        let Some(n) = n else {
+            return Err(at(
+                k.span().start,
+                format!(
+                    "[fundamentals]: '{}' is not a fundamental (expected nu1, nu2, … as the \
+                     Spectra pane numbers them)",
+                    k.get_ref()
+                ),
+            ));
+        };
+        if out.iter().any(|(m, _)| *m == n) {
+            return Err(at(
+                k.span().start,
+                format!("[fundamentals]: nu{n} is given twice"),
+            ));
+        }
+        let p = v.get_ref().get();
+        if !(p > 0.0 && p.is_finite()) {
+            return Err(at(
+                v.span().start,
+                format!("[fundamentals]: nu{n} must be a positive wavenumber in cm⁻¹, found {p}"),
+            ));
+        }
+        out.push((n, p));
+    }
+    out.sort_by_key(|(n, _)| *n);
+    Ok(out)
 }
 
 fn band(b: &RawBand, at: &At) -> Result<Band, LoadError> {

@@ -49,6 +49,10 @@
 //! intensity = "vs"                # free text (vs, s, m, w, vw, sh, a number …)
 //! polarization = "p"              # Raman only: p (polarized) | dp (depolarized)
 //! note = "sharp"
+//!
+//! [fundamentals]                  # optional: positions of fundamentals, cm⁻¹, by their ν
+//! nu1 = 330.0                     # number as the Spectra pane numbers them; overtone and
+//! nu3 = 312.0                     # combination positions are then filled in (harmonic sums)
 //! ```
 //!
 //! A tick in column *c* means: take one operation of class *c* (the same one for every member,

@@ -14,6 +14,9 @@ pub struct Session {
     pub geometry: Option<Geometry>,
     pub sets: Vec<MemberSet>,
     pub bands: Vec<Band>,
+    /// `[fundamentals]`: positions (cm⁻¹) given to fundamentals, by their ν number as the
+    /// Spectra pane numbers them (ν1 = 1), in increasing number, each number once.
+    pub nu_positions: Vec<(usize, f64)>,
     pub notes: String,
     /// `[vibrations]`: a frequency job's Hessian to label.
     pub vibrations: Option<Vibrations>,

@@ -151,6 +151,14 @@ pub fn to_toml(s: &Session) -> String {
             o.push_str(&format!("note = {}\n", q(&b.note)));
         }
     }
+    if !s.nu_positions.is_empty() {
+        o.push_str("\n[fundamentals]\n");
+        let mut nu = s.nu_positions.clone();
+        nu.sort_by_key(|(n, _)| *n);
+        for (n, p) in nu {
+            o.push_str(&format!("nu{n} = {}\n", num(p)));
+        }
+    }
     if let Some(v) = &s.vibrations {
         o.push_str(&super::vib_section::to_toml(v, q, num));
     }

@@ -106,6 +106,12 @@ pub enum Action {
     EditTitle,
     /// Retype the session's orientation note.
     EditOrientation,
+    /// Spectra: give a fundamental (ν number) its position, or clear it.
+    SetNuPosition,
+    /// Add, retype or remove a line of the session's notes.
+    EditNotes,
+    /// Start a new, empty session (asks about unsaved edits first).
+    NewSession,
     /// Show the focused pane alone, or all panes again (tiled screens).
     Zoom,
     /// Leave a dialog, search or overlay.

@@ -33,6 +33,13 @@ pub enum FieldPurpose {
     ChangeBand(usize),
     Title,
     Orientation,
+    /// A fundamental's ν number and position.
+    NuPosition,
+    /// Which note line to retype, add or remove.
+    NoteWhich,
+    AddNote,
+    /// The note line with this index, retyped.
+    ChangeNote(usize),
 }
 
 /// A one-line text field at the bottom of the screen.
@@ -54,6 +61,8 @@ pub enum Question {
     OverwriteSession(PathBuf),
     /// Replace an existing report file?
     OverwriteExport(PathBuf),
+    /// Unsaved edits before a new session: s = save first, d = discard.
+    NewSession,
 }
 
 /// What the screen is doing besides showing the panel.
@@ -127,6 +136,8 @@ pub struct App {
     pub screen: (u16, u16),
     /// Generating member and irrep of the worked projection (Combinations).
     pub combos_ui: super::molecule_edit::CombosUi,
+    /// Class columns of the Representation pane scrolled off to the left.
+    pub rep_hscroll: u16,
 }
 
 impl App {
@@ -162,6 +173,7 @@ impl App {
             quit: false,
             autosaved_gen: 0,
             screen: (80, 24),
+            rep_hscroll: 0,
         };
         app.quick_analysis();
         if let Some(rec) = app.recovery.pending(&app.session) {
@@ -543,6 +555,9 @@ impl App {
             Action::ChangeBand => self.band_number_prompt(FieldPurpose::ChangeBandWhich, "Change"),
             Action::EditTitle => self.title_prompt(),
             Action::EditOrientation => self.orientation_prompt(),
+            Action::SetNuPosition => self.nu_position_prompt(),
+            Action::EditNotes => self.notes_prompt(),
+            Action::NewSession => self.new_session_asked(),
             Action::NextGenerator => self.next_generator(),
             Action::NextIrrep => self.next_irrep(),
             Action::Char(_) | Action::Backspace => {}
@@ -649,6 +664,14 @@ impl App {
                     .unwrap_or(0);
                 self.members_ui.row = clampi(self.members_ui.row as i64 + dy, nrows);
                 self.members_ui.col = clampi(self.members_ui.col as i64 + dx, ncols);
+            }
+            Panel::Representation if dx != 0 => {
+                let ncols = self
+                    .analysis
+                    .as_ref()
+                    .map(|a| a.group.table.classes.len())
+                    .unwrap_or(1);
+                self.rep_hscroll = clampi(self.rep_hscroll as i64 + dx, ncols) as u16;
             }
             p => {
                 let s = &mut self.scrolls[p.index()];
@@ -976,7 +999,11 @@ impl App {
             | FieldPurpose::ChangeBandWhich
             | FieldPurpose::ChangeBand(_)
             | FieldPurpose::Title
-            | FieldPurpose::Orientation) => self.band_field_done(p, &text),
+            | FieldPurpose::Orientation
+            | FieldPurpose::NuPosition
+            | FieldPurpose::NoteWhich
+            | FieldPurpose::AddNote
+            | FieldPurpose::ChangeNote(_)) => self.record_field_done(p, &text),
         }
     }
 
@@ -1023,6 +1050,9 @@ impl App {
                 self.save_to(&p);
             }
             (Question::OverwriteExport(p), 'y') => self.export_to(&p),
+            (Question::NewSession, c @ ('s' | 'y' | 'd' | 'n' | '\u{1b}')) => {
+                self.new_session_answer(c)
+            }
             (Question::OverwriteSession(_) | Question::OverwriteExport(_), 'n' | '\u{1b}') => {
                 self.status("not written")
             }

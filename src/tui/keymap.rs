@@ -258,6 +258,13 @@ pub const BINDINGS: &[Binding] = &[
         "remove an observed band (asks its number; u brings it back)",
     ),
     b(
+        &[Key::ch('v')],
+        In(Panel::Spectra),
+        Action::SetNuPosition,
+        Some("position"),
+        "give a fundamental (ν number) its position in cm⁻¹: overtones and combinations fill in",
+    ),
+    b(
         &[Key::ch(']')],
         Everywhere,
         Action::NextSet,
@@ -418,6 +425,20 @@ pub const BINDINGS: &[Binding] = &[
         Action::EditOrientation,
         None,
         "retype the orientation note (where the axes and members lie)",
+    ),
+    b(
+        &[Key::ch('W')],
+        Everywhere,
+        Action::EditNotes,
+        None,
+        "write the session's notes: add a line, retype one, or remove one (shown in Spectra)",
+    ),
+    b(
+        &[Key::ctrl('n')],
+        Everywhere,
+        Action::NewSession,
+        None,
+        "start a new, empty session (asks first when there are unsaved edits)",
     ),
     b(
         &[Key::ch('u')],

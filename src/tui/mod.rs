@@ -54,15 +54,15 @@ pub fn look(opts: &Options) -> (bool, bool) {
     (color, ascii)
 }
 
-/// What a terminal type lacks: (colour, the Unicode glyphs). `dumb` and `vt100` have
-/// neither; the Linux console has the 16 colours but not the subscripts and box glyphs of its
-/// default font (common practice).
+/// What a terminal type lacks: (colour, the Unicode glyphs). `dumb`, `vt100` and the Linux
+/// console get plain ASCII without colour: the first two have neither (terminfo), and the
+/// console's default font lacks the subscripts and box glyphs (common practice), so it gets
+/// the same plain screen as the others.
 pub fn limited_terminal(term: &str) -> (bool, bool) {
     let t = term.trim();
     let base = t.split('-').next().unwrap_or("");
     match base {
-        "dumb" | "vt100" | "vt102" | "vt52" => (true, true),
-        "linux" => (false, true),
+        "dumb" | "vt100" | "vt102" | "vt52" | "linux" => (true, true),
         _ => (false, false),
     }
 }
@@ -263,14 +263,15 @@ mod tests {
     use super::limited_terminal;
 
     /// Terminal types by what they lack (common practice: terminfo's dumb and vt100 entries
-    /// have no colour; the Linux console font has no subscripts or box glyphs beyond its own).
+    /// have no colour; the Linux console font has no subscripts or box glyphs beyond its own,
+    /// and it is given the same plain screen).
     #[test]
     fn limited_terminals_get_ascii_and_the_dumb_ones_no_colour() {
         for (t, want) in [
             ("dumb", (true, true)),
             ("vt100", (true, true)),
             ("vt102", (true, true)),
-            ("linux", (false, true)),
+            ("linux", (true, true)),
             ("xterm-256color", (false, false)),
             ("screen", (false, false)),
             ("tmux-256color", (false, false)),

@@ -105,6 +105,7 @@ pub fn ascii_fold(s: &str) -> String {
             'φ' => o.push_str("phi"),
             'σ' => o.push('s'),
             'π' => o.push_str("pi"),
+            'ν' => o.push_str("nu"),
             'Σ' => o.push_str("Sum"),
             'Å' => o.push('A'),
             '→' => o.push_str("->"),

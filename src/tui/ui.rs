@@ -156,6 +156,7 @@ fn title_bar(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
             .file_name()
             .map(|n| n.to_string_lossy().to_string())
             .unwrap_or_default(),
+        None if app.saved.group.is_none() && app.saved.sets.is_empty() => "new, not saved".into(),
         None => "demo, not saved".into(),
     };
     let right = format!(" {group} {} {file}{modified} ", th.pick("·", "|"));
@@ -192,35 +193,45 @@ fn tabs(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
 }
 
 fn status_line(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
-    let line = match &app.mode {
+    let (text, style) = match &app.mode {
         // A field's question takes the status line and its text the footer's, so that what is
         // typed is always in view, whatever the width.
-        Mode::Field(fl) => Line::from(Span::styled(
-            trunc(
-                &panels::fold(&format!("{}:", fl.label), th),
-                area.width as usize,
-            ),
-            th.key(),
-        )),
+        Mode::Field(fl) => (panels::fold(&format!("{}:", fl.label), th), th.key()),
         _ => match &app.status {
-            Some(s) => {
-                let t = if th.ascii {
-                    ascii_fold(&s.text)
-                } else {
-                    s.text.clone()
-                };
-                Line::from(Span::styled(
-                    trunc(&t, area.width as usize),
-                    if s.error { th.error() } else { th.warn() },
-                ))
-            }
+            Some(s) => (
+                panels::fold(&s.text, th),
+                if s.error { th.error() } else { th.warn() },
+            ),
             None if app.analysis_pending() => {
-                Line::from(Span::styled(th.pick(" working…", " working..."), th.dim()))
+                (th.pick(" working…", " working...").to_string(), th.dim())
             }
-            None => Line::raw(""),
+            None => (String::new(), th.dim()),
         },
     };
-    f.render_widget(Paragraph::new(line), area);
+    // A long question or message wraps upwards over the bottom of the panes (never cut).
+    let w = area.width as usize;
+    let mut pieces = if width(&text) <= w {
+        vec![text]
+    } else {
+        super::text::wrap(&text, w)
+    };
+    let most = (area.y as usize).saturating_sub(3).max(1);
+    if pieces.len() > most {
+        pieces.truncate(most);
+        if let Some(last) = pieces.last_mut() {
+            *last = trunc(&format!("{last} …"), w);
+        }
+    }
+    let n = pieces.len() as u16;
+    let r = Rect::new(area.x, area.y + 1 - n, area.width, n);
+    if n > 1 {
+        f.render_widget(Clear, r);
+    }
+    let lines: Vec<Line> = pieces
+        .into_iter()
+        .map(|p| Line::from(Span::styled(trunc(&p, w), style)))
+        .collect();
+    f.render_widget(Paragraph::new(lines), r);
 }
 
 /// Footer entries shown whatever else has to give way.
@@ -344,6 +355,7 @@ fn question(f: &mut Frame, area: Rect, app: &App, q: &Question, th: &Theme) {
             format!("{} exists. Replace it with the new report?", p.display()),
             "y replace · n keep it",
         ),
+        Question::NewSession => super::session_edit::new_session_question(),
     };
     let keys = if th.ascii {
         ascii_fold(keys).replace('*', "|")

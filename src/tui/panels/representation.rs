@@ -14,8 +14,17 @@ use ratatui::text::{Line, Span};
 use ratatui::widgets::Paragraph;
 use ratatui::Frame;
 
-/// Aligned rows: classes, unmoved, per member, χ.
-fn class_rows(a: &Analysis, s: &SetAnalysis, th: &Theme, nt: Notation) -> Vec<Line<'static>> {
+/// Aligned rows: classes, unmoved, per member, χ. When they are wider than `room`, the row
+/// labels stay and the class columns start at column `skip` (←/→ move it), with a line
+/// saying which classes are shown.
+fn class_rows(
+    a: &Analysis,
+    s: &SetAnalysis,
+    th: &Theme,
+    nt: Notation,
+    skip: usize,
+    room: usize,
+) -> Vec<Line<'static>> {
     let symbols = a.class_symbols(th.ascii);
     let chi: Vec<String> = match &*s.outcome {
         Outcome::Finite { chi, .. } => chi.0.iter().map(|v| v.text(nt)).collect(),
@@ -36,17 +45,46 @@ fn class_rows(a: &Analysis, s: &SetAnalysis, th: &Theme, nt: Notation) -> Vec<Li
             .unwrap_or(3)
         })
         .collect();
+    let n = symbols.len();
+    let full: usize = 12 + w.iter().map(|x| x + 1).sum::<usize>();
+    let skip = if full > room {
+        skip.min(n.saturating_sub(1))
+    } else {
+        0
+    };
     let row = |label: &str, vals: &[String], st| {
         let mut spans = vec![Span::styled(format!("{label:<12}"), st)];
-        for (c, v) in vals.iter().enumerate() {
+        for (c, v) in vals.iter().enumerate().skip(skip) {
             spans.push(Span::styled(format!(" {}", pad_left(v, w[c])), st));
         }
         Line::from(spans)
     };
-    let mut out = vec![
+    let mut out = Vec::new();
+    if full > room {
+        // The last class column that fits after the fixed labels.
+        let mut used = 12;
+        let mut last = skip;
+        for (c, x) in w.iter().enumerate().skip(skip) {
+            if used + x + 1 > room {
+                break;
+            }
+            used += x + 1;
+            last = c + 1;
+        }
+        out.push(styled(
+            &format!(
+                "classes {}–{} of {n} shown; ←/→ scroll them sideways",
+                skip + 1,
+                last.max(skip + 1)
+            ),
+            th.dim(),
+            th,
+        ));
+    }
+    out.extend([
         row("", &symbols, th.heading()),
         row("unmoved", &unmoved, ratatui::style::Style::default()),
-    ];
+    ]);
     if !each.is_empty() {
         out.push(row("each", &each, th.dim()));
     }
@@ -92,7 +130,14 @@ pub fn lines(app: &App, th: &Theme, width_cols: usize) -> Vec<Line<'static>> {
         th,
     ));
     out.push(Line::raw(""));
-    out.extend(class_rows(a, s, th, nt));
+    out.extend(class_rows(
+        a,
+        s,
+        th,
+        nt,
+        app.rep_hscroll as usize,
+        width_cols,
+    ));
     out.push(Line::raw(""));
     let g = &a.group;
     match &*s.outcome {

@@ -93,6 +93,17 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
                             th.heading(),
                             th,
                         ));
+                        let placed = c.fundamentals.iter().any(|f| f.position_cm.is_some());
+                        if !placed {
+                            for l in super::wrap_folded(
+                                th,
+                                "v gives a fundamental its position (ν number and cm⁻¹); the \
+                                 harmonic positions of its overtones and combinations fill in.",
+                                width,
+                            ) {
+                                lines.push(styled(&l, th.dim(), th));
+                            }
+                        }
                         text_lines(
                             &mut lines,
                             &crate::spectra::render::combinations_markdown(c),
@@ -133,6 +144,7 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
             lines.push(Line::raw(""));
         }
     }
+    notes_lines(&mut lines, app, th, inner.width as usize);
     let bands = &app.session.bands;
     lines.push(styled(
         &format!("Observed bands ({})", bands.len()),
@@ -182,6 +194,30 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     );
 }
 
+/// The session's notes, numbered (W edits them).
+fn notes_lines(lines: &mut Vec<Line<'static>>, app: &App, th: &Theme, width: usize) {
+    let notes = super::super::session_edit::note_lines(&app.session.notes);
+    lines.push(styled(
+        &format!("Notes ({} lines)", notes.len()),
+        th.heading(),
+        th,
+    ));
+    if notes.is_empty() {
+        lines.push(styled("none: W writes a line", th.dim(), th));
+    }
+    for (k, n) in notes.iter().enumerate() {
+        let lead = format!("{:<4}", k + 1);
+        for (i, piece) in super::wrap_folded(th, n, width.saturating_sub(4))
+            .into_iter()
+            .enumerate()
+        {
+            let l = if i == 0 { lead.clone() } else { "    ".into() };
+            lines.push(Line::raw(format!("{l}{piece}")));
+        }
+    }
+    lines.push(Line::raw(""));
+}
+
 /// The report's ASCII irrep labels (`A1'`, `E2g`) in the workspace's Unicode style (A₁′, E₂g):
 /// only whole words that are labels of the group's own irreps are changed.
 pub fn unicode_labels(text: &str, labels: &[String]) -> String {
@@ -189,8 +225,11 @@ pub fn unicode_labels(text: &str, labels: &[String]) -> String {
     let mut out = String::with_capacity(text.len());
     let mut word = String::new();
     let flush = |word: &mut String, out: &mut String| {
-        if labels.iter().any(|l| l == word) {
-            out.push_str(&crate::group::display_label(word));
+        // A multiplicity written against the label (`2E'`) stays in front of it.
+        let label = word.trim_start_matches(|c: char| c.is_ascii_digit());
+        if labels.iter().any(|l| l == label) {
+            out.push_str(&word[..word.len() - label.len()]);
+            out.push_str(&crate::group::display_label(label));
         } else {
             out.push_str(word);
         }
@@ -221,5 +260,8 @@ mod tests {
             .collect();
         let out = unicode_labels("| A1' | E'' | x, y | A1g Eq |", &labels);
         assert_eq!(out, "| A₁′ | E″ | x, y | A1g Eq |");
+        // A multiplicity in front of a label (Γ = A1' + 2E'), and a ν name that is no label.
+        let out = unicode_labels("Γ = A1' + 2E' + A2'' ; 2ν1 12", &labels);
+        assert_eq!(out, "Γ = A₁′ + 2E′ + A₂″ ; 2ν1 12");
     }
 }
