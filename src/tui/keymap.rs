@@ -420,6 +420,20 @@ pub const BINDINGS: &[Binding] = &[
         "retype the orientation note (where the axes and members lie)",
     ),
     b(
+        &[Key::ch('L')],
+        Everywhere,
+        Action::LowerSymmetry,
+        None,
+        "what if: lower the symmetry (pick subgroup and way; a applies it)",
+    ),
+    b(
+        &[Key::ch('R')],
+        Everywhere,
+        Action::ReplaceAtom,
+        None,
+        "what if: replace one atom of the geometry (new group, Γvib, band counts)",
+    ),
+    b(
         &[Key::ch('u')],
         Everywhere,
         Action::Undo,
@@ -481,6 +495,10 @@ pub const FIELD_KEYS: &[(&str, &str)] = &[
     (
         "j/k g/G PgUp/PgDn",
         "in this help: scroll (any other key closes it)",
+    ),
+    (
+        "What if: ↑/↓ Enter a",
+        "pick a way and show it; a applies the lowering; Esc closes",
     ),
     (
         "y / n",
