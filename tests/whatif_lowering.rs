@@ -282,8 +282,8 @@ fn carried_ticks_restrict_the_character_everywhere() {
     let mut checked = 0;
     for name in group::names() {
         let g = group::load(name).unwrap();
-        if g.is_linear() || g.order() > 48 {
-            continue; // the icosahedral groups are covered by the same code; kept out for time
+        if g.is_linear() {
+            continue;
         }
         let nc = g.table.classes.len();
         // Member k is ticked at class c when (k·c + k + c) is odd or k = 0 (every class).
@@ -426,4 +426,30 @@ fn replacing_one_ligand_of_planar_ml4() {
     let far = substitute::parse_replacement("9 Br").unwrap();
     let e = substitute::substitute(&s, None, &far).unwrap_err();
     assert!(e.contains("5 atoms"), "{e}");
+}
+
+/// D2d in D4h keeps the S4 about the principal axis (Cotton, ch. 3: D2d = E, 2S4, C2, 2C2',
+/// 2σd); the description names the S4, not only the C2 inside it, and the two ways differ in
+/// whether the C2′ axes run along the bonds or between them.
+#[test]
+fn d2d_in_d4h_is_described_by_its_s4() {
+    let s = session("D4h", planar_ml4(), true);
+    let a = full(&s);
+    let ways = ways_to(&a, "D2d");
+    assert_eq!(ways.len(), 2);
+    for w in &ways {
+        assert!(
+            w.description.starts_with("S4 along the principal axis"),
+            "{}",
+            w.description
+        );
+    }
+    way_with(
+        &ways,
+        &["C2 perpendicular to the principal axis, along the Pt–Cl bond"],
+    );
+    way_with(
+        &ways,
+        &["C2 perpendicular to the principal axis, between the bonds"],
+    );
 }

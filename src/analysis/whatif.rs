@@ -337,9 +337,19 @@ fn describe(
     }
     rot.sort_by_key(|r| std::cmp::Reverse(r.0));
     let principal = has_principal_axis(g);
+    // An improper axis of higher order than the rotation along it (S4 over C2) is named instead.
+    let higher = |n: u32, u: &Vector3<f64>| {
+        improper
+            .iter()
+            .find(|(k, v)| *k > n && parallel(u, v))
+            .copied()
+    };
     let mut parts: Vec<String> = rot
         .iter()
-        .map(|(n, u)| phrase(&Element::Rotation(*n, *u), principal, atoms))
+        .map(|(n, u)| match higher(*n, u) {
+            Some((k, v)) => phrase(&Element::Improper(k, v), principal, atoms),
+            None => phrase(&Element::Rotation(*n, *u), principal, atoms),
+        })
         .collect();
     parts.extend(
         improper

@@ -144,18 +144,22 @@ fn scrolled(s: u16, code: Code, step: impl Fn(u16, i32) -> u16) -> u16 {
     }
 }
 
-/// Irrep labels in the workspace's style (Unicode unless ASCII).
+/// Irrep labels of a Γ (`4A1 + 2Eu`) in the workspace's style (Unicode unless ASCII).
 fn labels(text: &str, group: &str, th: &Theme) -> String {
     if th.ascii {
         return text.to_string();
     }
-    match crate::group::load(group) {
-        Ok(g) => {
-            let ls: Vec<String> = g.table.irreps.iter().map(|r| r.label.clone()).collect();
-            unicode_labels(text, &ls)
-        }
-        Err(_) => text.to_string(),
-    }
+    let Ok(g) = crate::group::load(group) else {
+        return text.to_string();
+    };
+    let ls: Vec<String> = g.table.irreps.iter().map(|r| r.label.clone()).collect();
+    text.split(" + ")
+        .map(|term| {
+            let n: String = term.chars().take_while(|c| c.is_ascii_digit()).collect();
+            format!("{n}{}", unicode_labels(&term[n.len()..], &ls))
+        })
+        .collect::<Vec<_>>()
+        .join(" + ")
 }
 
 /// Rows `label | before | after`, each cell wrapped in its column.
