@@ -453,3 +453,31 @@ fn d2d_in_d4h_is_described_by_its_s4() {
         &["C2 perpendicular to the principal axis, between the bonds"],
     );
 }
+
+/// Without a geometry the ways are told by directions in the table's standard orientation
+/// (tables/D4h.toml: C4 along z, a C2′ along x, σv the xz plane, σd the plane x = y); the
+/// ticks go through the classes and give the same Γ as with the geometry.
+#[test]
+fn without_a_geometry_the_ways_are_told_by_direction() {
+    let mut s = session("D4h", planar_ml4(), false);
+    s.geometry = None;
+    let a = full(&s);
+    let ways = ways_to(&a, "C2v");
+    let sv = way_with(
+        &ways,
+        &["C2 along z (the principal axis)", "σ in the xz plane"],
+    );
+    let sd = way_with(
+        &ways,
+        &["C2 along z", "σ containing z and the line between x"],
+    );
+    way_with(&ways, &["C2 along x, perpendicular to the principal axis"]);
+    way_with(
+        &ways,
+        &["C2 between x and", "perpendicular to the principal axis"],
+    );
+    let after = |w: &whatif::Way| whatif::lower(&s, &a, w).unwrap().sets[0].after.clone();
+    // As in planar_ml4_to_c2v_depends_on_the_way (WDC Appendix X).
+    assert_eq!(after(&sv).map(|g| count(&g, "A1")), Some(2));
+    assert_eq!(after(&sd).map(|g| count(&g, "A2")), Some(1));
+}

@@ -249,11 +249,19 @@ fn phrase(e: &Element, principal: bool, atoms: Option<&[(String, Vector3<f64>)]>
                     (r, _) => format!("{r}, {where_}"),
                 }
             }
-            None => match rel {
-                "the principal axis" => format!("along {} (the principal axis)", direction(u)),
-                "" => format!("along {}", direction(u)),
-                r => format!("along {}, {r}", direction(u)),
-            },
+            None => {
+                let d = direction(u);
+                let along = if d.starts_with("between") {
+                    d
+                } else {
+                    format!("along {d}")
+                };
+                match rel {
+                    "the principal axis" => format!("{along} (the principal axis)"),
+                    "" => along,
+                    r => format!("{along}, {r}"),
+                }
+            }
         }
     };
     match e {
@@ -280,21 +288,29 @@ fn phrase(e: &Element, principal: bool, atoms: Option<&[(String, Vector3<f64>)]>
                     }
                 }
                 None => {
-                    let plane = if parallel(n, &Vector3::x()) {
-                        "the yz plane".to_string()
-                    } else if parallel(n, &Vector3::y()) {
-                        "the xz plane".to_string()
-                    } else if parallel(n, &z) {
-                        "the xy plane".to_string()
+                    let side = if principal {
+                        " (containing the principal axis)"
                     } else {
-                        format!("the plane normal to {}", direction(n))
+                        ""
                     };
-                    if contains_z && !plane.contains("plane normal") {
-                        format!("σ {plane} (containing the principal axis)")
-                    } else if contains_z {
-                        format!("σ containing the principal axis, {plane}")
+                    if parallel(n, &z) {
+                        let perp = if principal {
+                            " (perpendicular to the principal axis)"
+                        } else {
+                            ""
+                        };
+                        format!("σ in the xy plane{perp}")
+                    } else if n.dot(&z).abs() < 1e-4 {
+                        let d = z.cross(n).normalize();
+                        if parallel(&d, &Vector3::x()) {
+                            format!("σ in the xz plane{side}")
+                        } else if parallel(&d, &Vector3::y()) {
+                            format!("σ in the yz plane{side}")
+                        } else {
+                            format!("σ containing z and the line {}{side}", direction(&d))
+                        }
                     } else {
-                        format!("σ {plane}")
+                        format!("σ normal to {}", direction(n))
                     }
                 }
             }
@@ -660,17 +676,13 @@ pub fn regroup(
     }
     let why = if ways.len() > 1 {
         format!(
-            "{} sits in {} {} ways ('lower symmetry' picks one and carries them)",
+            "{} sits in {} {} ways (L lowers one way)",
             new.name(),
             g.name(),
             ways.len()
         )
     } else {
-        format!(
-            "{} is not a subgroup of {}: the classes do not correspond",
-            new.name(),
-            g.name()
-        )
+        format!("{} is not a subgroup of {}", new.name(), g.name())
     };
     let took = if from_geometry > 0 {
         format!("; {from_geometry} member(s) ticked from the geometry")
