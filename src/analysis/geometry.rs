@@ -85,7 +85,7 @@ fn key_of(g: &Geometry, base: Option<&Path>) -> Key {
     (src, g.tolerance.to_bits(), edits)
 }
 
-fn molecule(g: &Geometry, base: Option<&Path>) -> Result<Molecule, String> {
+pub(super) fn molecule(g: &Geometry, base: Option<&Path>) -> Result<Molecule, String> {
     match &g.source {
         GeometrySource::Atoms(atoms) => {
             if atoms.is_empty() {
@@ -131,7 +131,11 @@ fn run_survey(g: &Geometry, base: Option<&Path>) -> Result<Arc<Survey>, String> 
             g.tolerance
         ));
     }
-    let mut mol = molecule(g, base)?;
+    survey_molecule(molecule(g, base)?, g)
+}
+
+/// Survey a molecule with the geometry's tolerance and bond edits (also for what-if copies).
+pub(super) fn survey_molecule(mut mol: Molecule, g: &Geometry) -> Result<Arc<Survey>, String> {
     let mut opts = SurveyOptions {
         tolerance: g.tolerance,
         ..SurveyOptions::default()

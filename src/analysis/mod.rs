@@ -14,8 +14,10 @@ mod geometry;
 mod layers;
 mod set;
 mod spectra;
+pub mod substitute;
 mod ticks;
 pub mod vibrations;
+pub mod whatif;
 
 pub use catalogue::{catalogue, fit, GroupEntry};
 pub use classes::{class_label, resolve_class};

@@ -75,6 +75,15 @@ pub fn classes_in_subgroup(g: &PointGroup, h: &PointGroup, k: &[usize]) -> Optio
         .collect()
 }
 
+/// For each operation of H (`h.ops` order), the operation of G it is placed on inside `k`;
+/// None if no Q is found.
+pub(crate) fn place(g: &PointGroup, h: &PointGroup, k: &[usize]) -> Option<Vec<usize>> {
+    if h.order() != k.len() {
+        return None;
+    }
+    images(g, h, k, &find_q(g, h, k)?)
+}
+
 fn find_q(g: &PointGroup, h: &PointGroup, k: &[usize]) -> Option<Matrix3<f64>> {
     let id = Matrix3::identity();
     if images(g, h, k, &id).is_some() {

@@ -23,6 +23,7 @@ mod embed;
 mod error;
 mod lambda;
 mod linear_embed;
+mod placement;
 mod real;
 pub mod render;
 mod subgroups;
@@ -47,6 +48,7 @@ pub use descent::{
 };
 pub use error::SpectraError;
 pub use lambda::Species;
+pub use placement::{placements, Placement};
 pub use real::{
     ascii_label, is_centrosymmetric, is_totally_symmetric, parse_gamma, real_character, real_index,
     real_irreps, to_real, to_rows, RealIrrep,

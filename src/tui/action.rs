@@ -114,6 +114,10 @@ pub enum Action {
     NewSession,
     /// Show the focused pane alone, or all panes again (tiled screens).
     Zoom,
+    /// What if: lower the session's symmetry (pick the subgroup and the way).
+    LowerSymmetry,
+    /// What if: replace one atom of the geometry (asks number and element).
+    ReplaceAtom,
     /// Leave a dialog, search or overlay.
     Cancel,
     /// A character typed into a text field.

@@ -40,6 +40,8 @@ pub enum FieldPurpose {
     AddNote,
     /// The note line with this index, retyped.
     ChangeNote(usize),
+    /// What if: an atom number and its new element.
+    ReplaceAtom,
 }
 
 /// A one-line text field at the bottom of the screen.
@@ -69,9 +71,13 @@ pub enum Question {
 #[derive(Debug, Clone, PartialEq)]
 pub enum Mode {
     Normal,
-    Help { scroll: u16 },
+    Help {
+        scroll: u16,
+    },
     Field(Field),
     Ask(Question),
+    /// The What-if overlay (lower the symmetry, replace an atom).
+    WhatIf(Box<super::whatif::WhatIfView>),
 }
 
 /// A message in the status line.
@@ -354,6 +360,7 @@ impl App {
         match self.mode.clone() {
             Mode::Field(f) => return self.field_key(f, key),
             Mode::Ask(q) => return self.answer(q, key),
+            Mode::WhatIf(v) => return self.whatif_key(*v, key),
             Mode::Help { scroll } => {
                 let s = match key.code {
                     Code::Down | Code::Char('j') => scroll.saturating_add(1),
@@ -560,6 +567,8 @@ impl App {
             Action::NewSession => self.new_session_asked(),
             Action::NextGenerator => self.next_generator(),
             Action::NextIrrep => self.next_irrep(),
+            Action::LowerSymmetry => self.lower_symmetry_picker(),
+            Action::ReplaceAtom => self.replace_atom_prompt(),
             Action::Char(_) | Action::Backspace => {}
             Action::Click { x, y } => super::ui::click(self, x, y),
         }
@@ -714,19 +723,14 @@ impl App {
             Ok(g) => g,
             Err(e) => return self.error(e.to_string()),
         };
-        let mut dropped = 0usize;
-        self.edit(|s| {
-            s.group = Some(entry.name.clone());
-            for set in &mut s.sets {
-                for m in &mut set.members {
-                    let before = m.unmoved_by.len();
-                    m.unmoved_by.retain(|c| {
-                        new_group.table.classes.iter().any(|k| &k.ascii == c) || c == "E"
-                    });
-                    dropped += before - m.unmoved_by.len();
-                }
-            }
-        });
+        // Ticks carry over only where the classes (or the geometry) determine them.
+        let (regrouped, extra) = crate::analysis::whatif::regroup(
+            &self.session,
+            self.analysis.as_deref().ok(),
+            &new_group,
+            self.base_dir().as_deref(),
+        );
+        self.edit(|s| *s = regrouped);
         self.group_ui.query.clear();
         self.group_ui.typing = false;
         if let Some(i) = self
@@ -736,14 +740,6 @@ impl App {
         {
             self.group_ui.cursor = i;
         }
-        let extra = if dropped > 0 {
-            format!(
-                "; {dropped} tick(s) on classes {} does not have were cleared (u undoes)",
-                entry.name
-            )
-        } else {
-            String::new()
-        };
         self.status(format!("group: {}{extra}", entry.name));
     }
 
@@ -994,6 +990,7 @@ impl App {
             FieldPurpose::AddBonds => self.bonds_done(true, &text),
             FieldPurpose::RemoveBonds => self.bonds_done(false, &text),
             FieldPurpose::Sites => self.sites_done(&text),
+            FieldPurpose::ReplaceAtom => self.replace_atom_done(&text),
             p @ (FieldPurpose::AddBand
             | FieldPurpose::RemoveBandWhich
             | FieldPurpose::ChangeBandWhich

@@ -441,6 +441,20 @@ pub const BINDINGS: &[Binding] = &[
         "start a new, empty session (asks first when there are unsaved edits)",
     ),
     b(
+        &[Key::ch('L')],
+        Everywhere,
+        Action::LowerSymmetry,
+        None,
+        "what if: lower the symmetry (pick subgroup and way; a applies it)",
+    ),
+    b(
+        &[Key::ch('R')],
+        Everywhere,
+        Action::ReplaceAtom,
+        None,
+        "what if: replace one atom of the geometry (new group, Γvib, band counts)",
+    ),
+    b(
         &[Key::ch('u')],
         Everywhere,
         Action::Undo,
@@ -502,6 +516,10 @@ pub const FIELD_KEYS: &[(&str, &str)] = &[
     (
         "j/k g/G PgUp/PgDn",
         "in this help: scroll (any other key closes it)",
+    ),
+    (
+        "What if: ↑/↓ Enter a",
+        "pick a way and show it; a applies the lowering; Esc closes",
     ),
     (
         "y / n",

@@ -24,6 +24,7 @@ mod terminal;
 pub mod text;
 pub mod theme;
 pub mod ui;
+pub mod whatif;
 mod worker;
 
 pub use action::{Action, Panel};

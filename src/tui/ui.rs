@@ -95,6 +95,7 @@ pub fn draw(f: &mut Frame, app: &App) {
     match &app.mode {
         Mode::Help { scroll } => panels::help::draw(f, a.body, app, &th, *scroll),
         Mode::Ask(q) => question(f, a.body, app, q, &th),
+        Mode::WhatIf(v) => super::whatif::draw(f, a.body, v, &th),
         _ => {}
     }
     if th.ascii {
