@@ -195,7 +195,7 @@ fn check_set(sv: &Survey, set: &MemberSet, grid: &[Vec<bool>]) -> GeometryTicks 
 
 /// Does the operation with atom permutation `p` leave the member on the (0-based, in-range)
 /// `atoms` in place?
-fn stays(kind: SetKind, atoms: &[usize], p: &[usize]) -> bool {
+pub(super) fn stays(kind: SetKind, atoms: &[usize], p: &[usize]) -> bool {
     let img = |a: usize| p.get(a).copied();
     match (kind, atoms) {
         (SetKind::Stretch, &[a, b]) => {

@@ -33,6 +33,10 @@ pub enum FieldPurpose {
     ChangeBand(usize),
     Title,
     Orientation,
+    /// The atoms of the member under the cursor (Members, `@`).
+    MemberAtoms,
+    /// Element and numbers for one site set of the site builder (site type index, state).
+    SiteItem(usize, super::site_picker::SiteState),
 }
 
 /// A one-line text field at the bottom of the screen.
@@ -60,9 +64,13 @@ pub enum Question {
 #[derive(Debug, Clone, PartialEq)]
 pub enum Mode {
     Normal,
-    Help { scroll: u16 },
+    Help {
+        scroll: u16,
+    },
     Field(Field),
     Ask(Question),
+    /// A list to choose from (`picker`).
+    Pick(super::picker::Picker),
 }
 
 /// A message in the status line.
@@ -342,6 +350,7 @@ impl App {
         match self.mode.clone() {
             Mode::Field(f) => return self.field_key(f, key),
             Mode::Ask(q) => return self.answer(q, key),
+            Mode::Pick(p) => return self.pick_key(p, key),
             Mode::Help { scroll } => {
                 let s = match key.code {
                     Code::Down | Code::Char('j') => scroll.saturating_add(1),
@@ -537,7 +546,9 @@ impl App {
             }
             Action::AddBond => self.bond_prompt(true),
             Action::RemoveBond => self.bond_prompt(false),
-            Action::BuildSites => self.sites_prompt(),
+            Action::BuildSites => self.site_picker(Vec::new()),
+            Action::NewSetFromGeometry => self.member_set_picker(),
+            Action::MemberAtoms => self.member_atoms_prompt(),
             Action::AddBand => self.add_band_prompt(),
             Action::RemoveBand => self.band_number_prompt(FieldPurpose::RemoveBandWhich, "Remove"),
             Action::ChangeBand => self.band_number_prompt(FieldPurpose::ChangeBandWhich, "Change"),
@@ -971,6 +982,8 @@ impl App {
             FieldPurpose::AddBonds => self.bonds_done(true, &text),
             FieldPurpose::RemoveBonds => self.bonds_done(false, &text),
             FieldPurpose::Sites => self.sites_done(&text),
+            FieldPurpose::MemberAtoms => self.member_atoms_done(&text),
+            FieldPurpose::SiteItem(i, st) => self.site_item_done(i, st, &text),
             p @ (FieldPurpose::AddBand
             | FieldPurpose::RemoveBandWhich
             | FieldPurpose::ChangeBandWhich
