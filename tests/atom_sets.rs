@@ -319,7 +319,7 @@ fn missing_atoms_or_geometry_are_explained() {
     let r = set_salcs::set_salcs(pi, None, true).unwrap();
     let why = r.as_ref().as_ref().unwrap_err();
     assert!(
-        why.contains("no geometry") && why.contains("Molecule panel, b"),
+        why.contains("No geometry") && why.contains("Molecule panel, b"),
         "{why}"
     );
     // With a geometry, members without atoms are named and the keys given.

@@ -81,21 +81,20 @@ fn needs_atoms(set: &MemberSet, geometry: bool) -> String {
         SetKind::Scalar => "scalar members sit on atoms",
     };
     let base = format!(
-        "{} SALCs need to know where every operation sends each member, not only which \
-         operations leave it in place (the ticks): {what}.",
+        "{} SALCs need where each operation sends each member; ticks only say which leave it \
+         in place ({what}).",
         set.kind.name()
     );
     if geometry {
         format!(
-            "{base} Tie the members to atoms in the Members panel: A makes a new set from the \
-             geometry, @ gives the member under the cursor its atoms ({}).",
+            "{base} Tie the members to atoms in Members: A makes a set from the molecule, @ \
+             gives the member under the cursor {}.",
             set.kind.atoms_shape()
         )
     } else {
         format!(
-            "{base} This session has no geometry: build one (Molecule panel, b), then tie the \
-             members to atoms (Members panel: A makes a set from the geometry, @ names one \
-             member's atoms)."
+            "{base} No geometry yet: build one (Molecule panel, b), then tie the members to \
+             atoms (Members: A makes a set from the molecule, @ names a member's atoms)."
         )
     }
 }

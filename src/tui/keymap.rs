@@ -201,7 +201,7 @@ pub const BINDINGS: &[Binding] = &[
         &[Key::ch('A')],
         In(Panel::Members),
         Action::NewSetFromGeometry,
-        Some("set from atoms"),
+        None,
         "new set from the molecule: its bonds, angles, atoms or ligand σ/π (a picker)",
     ),
     b(
