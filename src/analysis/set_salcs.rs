@@ -9,7 +9,7 @@
 //! the others send it. When something is missing, [`SetSalcs`] is an `Err` that says what and
 //! how to supply it. Results are cached by geometry and set, so drawing costs a lookup.
 
-use super::atom_sets::{self, central_atom};
+use super::atom_sets;
 use super::geometry::GeometryAnalysis;
 use crate::basis::{self, Basis, BasisKind, Member as BMember, Structure};
 use crate::exact::Cyclo;
@@ -325,9 +325,4 @@ fn basis_of(st: &Structure, set: &MemberSet) -> Result<Basis, String> {
 fn central_atom_of(st: &Structure, at: &[Vec<usize>]) -> Option<usize> {
     let c = st.atom_at_origin()?;
     at.iter().all(|a| a.contains(&c)).then_some(c)
-}
-
-/// Whether the survey's centre is the given atom (for messages and tests).
-pub fn is_centre(sv: &Survey, atom: usize) -> bool {
-    central_atom(sv) == Some(atom)
 }

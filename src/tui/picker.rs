@@ -85,7 +85,7 @@ pub fn footer_line(th: &Theme) -> Line<'static> {
 
 /// Draw the picker over `area` (the body), its lines wrapped to the box.
 pub fn draw(f: &mut Frame, area: Rect, p: &Picker, th: &Theme) {
-    let w = area.width.min(78).max(20);
+    let w = area.width.clamp(20, 78);
     let inner_w = w.saturating_sub(2) as usize;
     let mut lines: Vec<Line> = Vec::new();
     for n in &p.notes {
