@@ -202,3 +202,44 @@ fn site_prompts_fit_80_columns_in_every_group_with_sites() {
         }
     }
 }
+
+fn screen(app: &mut App, w: u16, h: u16) -> String {
+    use ratatui::{backend::TestBackend, Terminal};
+    app.screen = (w, h);
+    let mut t = Terminal::new(TestBackend::new(w, h)).unwrap();
+    t.draw(|f| salcdesk::tui::ui::draw(f, app)).unwrap();
+    let buf = t.backend().buffer().clone();
+    let mut out = String::new();
+    for y in 0..h {
+        for x in 0..w {
+            out.push_str(buf[(x, y)].symbol());
+        }
+        out.push('\n');
+    }
+    out
+}
+
+#[test]
+fn the_legend_the_picker_and_the_set_salcs_are_on_screen_at_80x24() {
+    let (mut app, _) = mx5("screen");
+    app.apply(Action::GoPanel(Panel::Members));
+    // The legend says what each member is: r1 joins Sb1 and the axial Cl2.
+    let s = screen(&mut app, 80, 24);
+    assert!(s.contains("r1 = Sb1–Cl2"), "{s}");
+    app.handle_key(Key::ch('A'));
+    let s = screen(&mut app, 80, 24);
+    assert!(s.contains("New member set from the geometry"), "{s}");
+    assert!(s.contains("Sb–Cl stretches, 2.34 Å (2)"), "{s}");
+    pick(&mut app, "ligand σ");
+    app.finish_analysis();
+    app.apply(Action::GoPanel(Panel::Combinations));
+    let s = screen(&mut app, 80, 24);
+    // Two axial σ ligands of D3h: A1′ 1/√2(σ1 + σ2) and A2″ 1/√2(σ1 − σ2) (Cotton, 3rd ed.,
+    // §8.5, trigonal bipyramid; from memory).
+    assert!(s.contains("SALCs of set 3/3"), "{s}");
+    assert!(s.contains("A₁′") && s.contains("A₂″"), "{s}");
+    assert!(
+        s.contains("1/√2 (σ₁ + σ₂)") && s.contains("1/√2 (σ₁ − σ₂)"),
+        "{s}"
+    );
+}

@@ -143,12 +143,18 @@ pub fn offers(sv: &Survey, group: &PointGroup) -> Vec<Offer> {
             })
             .collect::<Vec<Member>>()
     };
+    let pos = |a: usize| sv.oriented.molecule.atoms[a].position;
     let numbered = |p: &'static str| move |k: usize, _: &[usize]| format!("{p}{}", k + 1);
     // Bond sets (Wilson–Decius–Cross §6-2: one stretch per bond).
     for bs in &sv.bond_sets {
         let items: Vec<Vec<usize>> = bs.set.bonds.iter().map(|&(a, b)| vec![a, b]).collect();
         let n = items.len();
-        let name = format!("{} stretches", bs.set.label);
+        let (a, b) = bs.set.bonds[0];
+        let name = format!(
+            "{} stretches, {:.2} Å",
+            bs.set.label,
+            pos(b).metric_distance(&pos(a))
+        );
         out.push(Offer {
             description: format!("{name} ({n})"),
             set: MemberSet {
@@ -167,7 +173,9 @@ pub fn offers(sv: &Survey, group: &PointGroup) -> Vec<Offer> {
             .map(|&(i, j, k)| vec![i, j, k])
             .collect();
         let n = items.len();
-        let name = format!("{} angles", asg.set.label);
+        let (i, j, k) = asg.set.angles[0];
+        let deg = (pos(i) - pos(j)).angle(&(pos(k) - pos(j))).to_degrees();
+        let name = format!("{} angles, {deg:.1}°", asg.set.label);
         out.push(Offer {
             description: format!("{name} ({n})"),
             set: MemberSet {
@@ -183,11 +191,7 @@ pub fn offers(sv: &Survey, group: &PointGroup) -> Vec<Offer> {
     let atom_orbits = orbits_of(&atoms, |p, a| p[a], &sv.permutations);
     for orbit in &atom_orbits {
         let n = orbit.len();
-        let name = format!(
-            "{} atoms ({}), x y z",
-            sym(orbit[0]),
-            plural(n, "site", "sites")
-        );
+        let name = format!("{} atoms, x y z", sym(orbit[0]));
         let items: Vec<Vec<usize>> = orbit.iter().map(|&a| vec![a]).collect();
         out.push(Offer {
             description: format!("{} atoms: x, y, z displacements ({n})", sym(orbit[0])),
