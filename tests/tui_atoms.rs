@@ -190,6 +190,18 @@ fn site_prompts_fit_80_columns_in_every_group_with_sites() {
         let Mode::Pick(p) = app.mode.clone() else {
             panic!("{g}: no picker")
         };
+        if ["D3h", "D4h", "C2v", "C3v"].contains(&g) {
+            // Each site type reads differently (the two C2 triangles of D3h point opposite
+            // ways; the two squares of D4h lie on the axes and between them — common practice).
+            let mut seen: Vec<&str> = p
+                .items
+                .iter()
+                .map(|i| i.split_once(" — ").unwrap().1)
+                .collect();
+            seen.sort();
+            seen.dedup();
+            assert_eq!(seen.len(), p.items.len(), "{g}: {:?}", p.items);
+        }
         for k in 0..p.items.len() {
             app.mode = Mode::Pick(p.clone());
             pick(&mut app, &p.items[k].clone());

@@ -40,6 +40,20 @@ fn polygon(n: usize) -> String {
     }
 }
 
+/// A ray in the xy plane in words: `along +x`, `along −y`, `at 45° from +x`.
+fn ray_words(v: &Vector3<f64>) -> String {
+    let named = [
+        (Vector3::x(), "+x"),
+        (-Vector3::x(), "−x"),
+        (Vector3::y(), "+y"),
+        (-Vector3::y(), "−y"),
+    ];
+    if let Some((_, w)) = named.iter().find(|(u, _)| (u - v).norm() < EPS) {
+        return format!("along {w}");
+    }
+    format!("at {:.0}° from +x", v.y.atan2(v.x).to_degrees())
+}
+
 /// Where a site type's atoms lie, in words, from the positions one atom on it generates.
 pub fn describe(t: &SiteType, ops: &[Matrix3<f64>]) -> String {
     let n = t.multiplicity;
@@ -66,9 +80,17 @@ pub fn describe(t: &SiteType, ops: &[Matrix3<f64>]) -> String {
     }
     let flat = pts.iter().all(|p| p.z.abs() < EPS);
     let on_z = pts.iter().all(|p| p.x.abs() < EPS && p.y.abs() < EPS);
+    let plane_word = if sigma_h { "σh plane" } else { "xy plane" };
+    let c_n = format!("C{}", t.axis_order);
     let where_ = match t.kind {
-        SiteKind::Axis if on_z && n == 1 => "on the principal axis (+z)".to_string(),
-        SiteKind::Axis if on_z => "pair on the principal axis (±z)".to_string(),
+        SiteKind::Axis if on_z => {
+            if n == 1 {
+                let sign = if t.direction.z >= 0.0 { "+z" } else { "−z" };
+                format!("on the principal axis ({sign})")
+            } else {
+                "pair on the principal axis (±z)".to_string()
+            }
+        }
         SiteKind::Axis
             if n == 6
                 && pts
@@ -80,30 +102,46 @@ pub fn describe(t: &SiteType, ops: &[Matrix3<f64>]) -> String {
         SiteKind::Axis
             if pts.iter().all(|p| {
                 (p.x.abs() - p.y.abs()).abs() < EPS && (p.y.abs() - p.z.abs()).abs() < EPS
-            }) =>
+            }) && (n == 4 || n == 8) =>
         {
-            match n {
-                4 => "tetrahedron (alternate corners of a cube)".to_string(),
-                8 => "corners of a cube".to_string(),
-                _ => format!("on the {}", t.label),
+            if n == 4 {
+                "tetrahedron (alternate corners of a cube)".to_string()
+            } else {
+                "corners of a cube".to_string()
             }
         }
         SiteKind::Axis if flat => format!(
-            "{} in the {} on the C{} axes",
+            "{} in the {plane_word} on the {c_n} axes, one {}",
             polygon(n),
-            if sigma_h { "σh plane" } else { "xy plane" },
-            t.axis_order
+            ray_words(&t.direction)
         ),
-        SiteKind::Axis => format!(
-            "on the {}s, off the xy plane",
-            t.label.trim_end_matches(|c: char| c.is_whitespace())
-        ),
-        SiteKind::Plane if flat => format!(
-            "{} in the {} between axes (asks r and θ)",
-            polygon(n),
-            if sigma_h { "σh plane" } else { "xy plane" }
-        ),
-        SiteKind::Plane => "in the vertical mirrors, off the axes (asks r and θ)".to_string(),
+        SiteKind::Axis => {
+            let shape = match (n, t.axis_order) {
+                (12, 5) => "icosahedron ",
+                (20, 3) => "dodecahedron corners ",
+                (30, 2) => "icosidodecahedron ",
+                (12, 2) => "cuboctahedron ",
+                _ => "",
+            };
+            format!("{shape}on the {c_n} axes")
+        }
+        SiteKind::Plane if flat => {
+            format!(
+                "{} in the {plane_word} between the axes (asks r and θ)",
+                polygon(n)
+            )
+        }
+        SiteKind::Plane if t.direction.z.abs() < EPS => {
+            let which = if t.direction.x.abs() < EPS {
+                " (the xz plane)".to_string()
+            } else if t.direction.y.abs() < EPS {
+                " (the yz plane)".to_string()
+            } else {
+                String::new()
+            };
+            format!("in a vertical mirror{which}, off the axes (asks r and θ)")
+        }
+        SiteKind::Plane => "in a mirror plane, off the axes (asks r and θ)".to_string(),
         SiteKind::General | SiteKind::Origin => {
             "general position, on no symmetry element (asks r, θ, φ)".to_string()
         }
