@@ -90,12 +90,31 @@ fn a_bad_bond_is_refused_with_a_message_and_no_edit() {
     assert!(st.error && st.text.contains("1to2"), "{:?}", st);
 }
 
+/// Take the first line of the open picker that contains `what`.
+fn pick(app: &mut App, what: &str) {
+    let salcdesk::tui::app::Mode::Pick(p) = &app.mode else {
+        panic!("no picker: {:?}", app.mode)
+    };
+    let k = p.items.iter().position(|i| i.contains(what)).unwrap();
+    for _ in p.cursor..k {
+        app.handle_key(Key::plain(Code::Down));
+    }
+    app.handle_key(Key::plain(Code::Enter));
+}
+
 #[test]
 fn building_from_sites_replaces_the_geometry_undoably() {
     let mut app = mx5();
     app.handle_key(Key::ch('6'));
     app.handle_key(Key::ch('b'));
-    typed(&mut app, "Sb@origin F@axis1:1.9 F@axis2:1.85");
+    pick(&mut app, "origin");
+    typed(&mut app, "Sb");
+    pick(&mut app, "axis1 ");
+    typed(&mut app, "F 1.9");
+    pick(&mut app, "axis2 ");
+    typed(&mut app, "F 1.85");
+    pick(&mut app, "build the molecule now");
+    app.finish_analysis();
     let Some(GeometrySource::Atoms(atoms)) = app.session.geometry.as_ref().map(|g| &g.source)
     else {
         panic!("inline atoms expected")
@@ -115,12 +134,19 @@ fn building_from_sites_replaces_the_geometry_undoably() {
         panic!("inline atoms expected")
     };
     assert_eq!(atoms[1].element, "Cl", "undo restores the old geometry");
-    // A site that does not exist says so and changes nothing.
+    // An axis site without its distance, or a word that is no element, says so and changes
+    // nothing (the question stays open with what was typed).
     let before = app.session.clone();
     app.handle_key(Key::ch('b'));
-    typed(&mut app, "F@axis9:2");
+    pick(&mut app, "axis1 ");
+    typed(&mut app, "F");
     assert_eq!(app.session, before);
     assert!(app.status.as_ref().unwrap().error);
+    app.handle_key(Key::ctrl('u'));
+    typed(&mut app, "Qq 2");
+    assert!(app.status.as_ref().unwrap().text.contains("not an element"));
+    app.handle_key(Key::plain(Code::Esc));
+    assert_eq!(app.session, before);
 }
 
 #[test]

@@ -7,12 +7,14 @@
 //! Refuses to know about terminals or output formats. Layers that are not in this build yet
 //! (geometry, SALCs, spectra) are reported as such in [`Layers`], never imitated.
 
+pub mod atom_sets;
 mod cache;
 mod catalogue;
 mod classes;
 mod geometry;
 mod layers;
 mod set;
+pub mod set_salcs;
 mod spectra;
 pub mod substitute;
 mod ticks;
@@ -138,6 +140,13 @@ pub fn analyze_in(session: &Session, depth: Depth, base: Option<&Path>) -> Resul
         .map(|s| set::analyze_set(&g, s, depth))
         .collect();
     let sets = ticks::check_sets(&g, session, geometry.as_ref(), sets);
+    if depth == Depth::Full {
+        // Work out the SALCs of every set tied to atoms now (the worker's thread), so that the
+        // Combinations panel only looks them up.
+        for s in &session.sets {
+            let _ = set_salcs::set_salcs(s, geometry.as_ref(), true);
+        }
+    }
     if let Some(ga) = &geometry {
         match &ga.survey {
             Ok(sv) if sv.group.name() != g.name() => notes.push(format!(

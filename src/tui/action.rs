@@ -96,6 +96,10 @@ pub enum Action {
     NextIrrep,
     /// Replace the current set's ticks with the geometry's (members that name their atoms).
     TakeGeometryTicks,
+    /// Members: a new member set from the geometry's bond, angle, atom or ligand sets.
+    NewSetFromGeometry,
+    /// Members: give or change the atoms of the member under the cursor.
+    MemberAtoms,
     /// Spectra: add an observed band.
     AddBand,
     /// Spectra: remove an observed band (asks its number).

@@ -42,6 +42,10 @@ pub enum FieldPurpose {
     ChangeNote(usize),
     /// What if: an atom number and its new element.
     ReplaceAtom,
+    /// The atoms of the member under the cursor (Members, `@`).
+    MemberAtoms,
+    /// Element and numbers for one site set of the site builder (site type index, state).
+    SiteItem(usize, super::site_picker::SiteState),
 }
 
 /// A one-line text field at the bottom of the screen.
@@ -78,6 +82,8 @@ pub enum Mode {
     Ask(Question),
     /// The What-if overlay (lower the symmetry, replace an atom).
     WhatIf(Box<super::whatif::WhatIfView>),
+    /// A list to choose from (`picker`).
+    Pick(super::picker::Picker),
 }
 
 /// A message in the status line.
@@ -361,6 +367,7 @@ impl App {
             Mode::Field(f) => return self.field_key(f, key),
             Mode::Ask(q) => return self.answer(q, key),
             Mode::WhatIf(v) => return self.whatif_key(*v, key),
+            Mode::Pick(p) => return self.pick_key(p, key),
             Mode::Help { scroll } => {
                 let s = match key.code {
                     Code::Down | Code::Char('j') => scroll.saturating_add(1),
@@ -556,7 +563,9 @@ impl App {
             }
             Action::AddBond => self.bond_prompt(true),
             Action::RemoveBond => self.bond_prompt(false),
-            Action::BuildSites => self.sites_prompt(),
+            Action::BuildSites => self.site_picker(Vec::new()),
+            Action::NewSetFromGeometry => self.member_set_picker(),
+            Action::MemberAtoms => self.member_atoms_prompt(),
             Action::AddBand => self.add_band_prompt(),
             Action::RemoveBand => self.band_number_prompt(FieldPurpose::RemoveBandWhich, "Remove"),
             Action::ChangeBand => self.band_number_prompt(FieldPurpose::ChangeBandWhich, "Change"),
@@ -991,6 +1000,8 @@ impl App {
             FieldPurpose::RemoveBonds => self.bonds_done(false, &text),
             FieldPurpose::Sites => self.sites_done(&text),
             FieldPurpose::ReplaceAtom => self.replace_atom_done(&text),
+            FieldPurpose::MemberAtoms => self.member_atoms_done(&text),
+            FieldPurpose::SiteItem(i, st) => self.site_item_done(i, st, &text),
             p @ (FieldPurpose::AddBand
             | FieldPurpose::RemoveBandWhich
             | FieldPurpose::ChangeBandWhich

@@ -197,6 +197,20 @@ pub const BINDINGS: &[Binding] = &[
         None,
         "delete this set (u brings it back)",
     ),
+    b(
+        &[Key::ch('A')],
+        In(Panel::Members),
+        Action::NewSetFromGeometry,
+        None,
+        "new set from the molecule: its bonds, angles, atoms or ligand σ/π (a picker)",
+    ),
+    b(
+        &[Key::ch('@')],
+        In(Panel::Members),
+        Action::MemberAtoms,
+        None,
+        "give or change the atoms of the member under the cursor (1-2, 2-1-3; none unties)",
+    ),
     // Sets, wherever sets are shown
     // Combinations
     b(
@@ -233,7 +247,7 @@ pub const BINDINGS: &[Binding] = &[
         In(Panel::Molecule),
         Action::BuildSites,
         Some("build"),
-        "build the molecule from the group's sites (replaces the geometry; u undoes)",
+        "build the molecule from the group's sites: pick site types, type element and r",
     ),
     // Spectra
     b(
@@ -513,6 +527,10 @@ pub const FIELD_KEYS: &[(&str, &str)] = &[
     ("Ctrl-u", "clear the whole field or search"),
     ("Enter", "accept the field"),
     ("Esc", "leave the field unchanged"),
+    (
+        "Up/Down Enter Esc",
+        "in a picker: choose, take the line, cancel",
+    ),
     (
         "j/k g/G PgUp/PgDn",
         "in this help: scroll (any other key closes it)",

@@ -11,15 +11,18 @@
 
 pub mod action;
 pub mod app;
+mod atoms_edit;
 mod input;
 pub mod keymap;
 pub mod layout;
 pub mod molecule_edit;
 pub mod panels;
+pub mod picker;
 mod reader;
 pub mod session_edit;
 pub mod sgr16;
 pub mod signals;
+pub mod site_picker;
 mod terminal;
 pub mod text;
 pub mod theme;

@@ -96,26 +96,6 @@ impl App {
         ));
     }
 
-    pub(super) fn sites_prompt(&mut self) {
-        let Some(g) = self.session.group.clone() else {
-            return self.error("choose a point group first (panel 1)");
-        };
-        let hint = match crate::group::load(&g) {
-            Ok(pg) if !pg.is_linear() => {
-                let ops: Vec<_> = pg.ops.iter().map(|o| o.float).collect();
-                geom::site_types(&ops)
-                    .map(|t| geom::site_names(&t).join(" "))
-                    .unwrap_or_default()
-            }
-            _ => return self.error(format!("{g} is linear: build in a finite group")),
-        };
-        self.ask_field(
-            FieldPurpose::Sites,
-            &format!("{g} sites ({hint}), e.g. Co@origin Cl@axis1:2.3"),
-            String::new(),
-        );
-    }
-
     pub(super) fn sites_done(&mut self, text: &str) {
         let Some(name) = self.session.group.clone() else {
             return;

@@ -96,6 +96,7 @@ pub fn draw(f: &mut Frame, app: &App) {
         Mode::Help { scroll } => panels::help::draw(f, a.body, app, &th, *scroll),
         Mode::Ask(q) => question(f, a.body, app, q, &th),
         Mode::WhatIf(v) => super::whatif::draw(f, a.body, v, &th),
+        Mode::Pick(p) => super::picker::draw(f, a.body, p, &th),
         _ => {}
     }
     if th.ascii {
@@ -241,6 +242,9 @@ const ALWAYS_IN_FOOTER: [&str; 3] = ["report", "quit", "help"];
 fn footer(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     if let Mode::Field(fl) = &app.mode {
         return f.render_widget(Paragraph::new(field_line(fl, area.width, th)), area);
+    }
+    if let Mode::Pick(_) = &app.mode {
+        return f.render_widget(Paragraph::new(super::picker::footer_line(th)), area);
     }
     let mut spans = Vec::new();
     let mut used = 0usize;

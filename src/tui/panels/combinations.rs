@@ -88,6 +88,12 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
                     th,
                 ));
             }
+            lines.extend(super::set_salcs::current_set(
+                app,
+                a,
+                th,
+                inner.width as usize,
+            ));
             match &a.geometry {
                 Some(ga) => {
                     lines.extend(worked(app, ga, th, inner.width as usize));
@@ -95,16 +101,6 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
                 }
                 None => {
                     lines.extend(promised(app, th));
-                    lines.push(Line::raw(""));
-                    for l in super::wrap_folded(
-                        th,
-                        "The SALCs themselves need to know how each operation moves the \
-                         members, not only which it leaves in place: give the session a \
-                         geometry (Molecule panel: b builds one from sites).",
-                        inner.width as usize,
-                    ) {
-                        lines.push(styled(&l, th.dim(), th));
-                    }
                 }
             }
         }

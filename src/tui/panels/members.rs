@@ -320,6 +320,7 @@ pub fn draw(f: &mut Frame, area: Rect, app: &App, th: &Theme) {
     for l in super::wrap_folded(th, &legend, inner.width as usize) {
         lines.push(styled(&l, th.dim(), th));
     }
+    lines.extend(super::set_salcs::legend(app, a, th, inner.width as usize));
     if !s.unknown_ticks.is_empty() {
         let names: Vec<String> = s
             .unknown_ticks

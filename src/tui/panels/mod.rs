@@ -6,6 +6,7 @@ pub mod help;
 pub mod members;
 pub mod molecule;
 pub mod representation;
+pub mod set_salcs;
 pub mod spectra;
 pub mod vibrations;
 
