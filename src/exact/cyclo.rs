@@ -470,18 +470,12 @@ impl Cyclo {
             c.normalize();
             return c;
         }
-        let mut dense = vec![Rat::ZERO; a.len() + b.len()];
-        for (i, x) in a.iter().enumerate() {
-            if x.is_zero() {
-                continue;
-            }
-            for (j, y) in b.iter().enumerate() {
-                if !y.is_zero() {
-                    dense[i + j] = &dense[i + j] + &(x * y);
-                }
-            }
-        }
-        Self::from_dense_rat(dense, m)
+        let mut c = Cyclo {
+            n: m,
+            coeffs: multiply_general(a, b, m),
+        };
+        c.normalize();
+        c
     }
 
     /// The rational r with self = r·other, if there is one (other ≠ 0). In the power basis of
@@ -571,10 +565,27 @@ impl Cyclo {
     }
 }
 
+/// The product of two elements of Q(ζₘ), coefficient by coefficient (big rationals where a
+/// part does not fit machine integers): the general path the integer form falls back to.
+pub(super) fn multiply_general(a: &[Rat], b: &[Rat], m: u32) -> Coeffs {
+    let mut dense = vec![Rat::ZERO; a.len() + b.len()];
+    for (i, x) in a.iter().enumerate() {
+        if x.is_zero() {
+            continue;
+        }
+        for (j, y) in b.iter().enumerate() {
+            if !y.is_zero() {
+                dense[i + j] = &dense[i + j] + &(x * y);
+            }
+        }
+    }
+    super::poly::reduce_general(dense, m).into_iter().collect()
+}
+
 /// The product of two elements of Q(ζₘ) on the integer form (one common denominator each):
 /// an integer convolution and an integer reduction modulo Φₘ. `None` when a part does not fit
 /// (the caller then multiplies coefficient by coefficient with big rationals where needed).
-fn multiply_small(a: &[Rat], b: &[Rat], m: u32) -> Option<Coeffs> {
+pub(super) fn multiply_small(a: &[Rat], b: &[Rat], m: u32) -> Option<Coeffs> {
     let (na, da) = integer_form(a)?;
     let (nb, db) = integer_form(b)?;
     // |Σ xᵢyⱼ| ≤ len·max|x|·max|y|: keep 2⁹⁶ of the 2¹²⁷ for that, the rest for the reduction

@@ -198,7 +198,7 @@ pub fn reduce_int(mut coeffs: Ints, n: u32) -> Option<Ints> {
 }
 
 /// The general reduction, coefficient by coefficient (big rationals where needed).
-fn reduce_general(mut coeffs: Vec<Rat>, n: u32) -> Vec<Rat> {
+pub(super) fn reduce_general(mut coeffs: Vec<Rat>, n: u32) -> Vec<Rat> {
     let phi = cyclotomic(n);
     let deg = phi.len() - 1;
     // First fold exponents ≥ n using ζⁿ = 1.

@@ -250,3 +250,54 @@ mod fast_path_props {
         }
     }
 }
+
+/// The fast integer-form paths (one denominator per number, checked 128-bit integers) give the
+/// very same coefficients as the general coefficient-by-coefficient path, on random numbers of
+/// the fields point groups use, including parts too large for the fast path (which must then
+/// decline, never wrap).
+mod fast_path_agrees {
+    use super::super::cyclo::{multiply_general, multiply_small};
+    use super::super::poly::{reduce, reduce_general, totient};
+    use super::super::rat::Rat;
+    use proptest::prelude::*;
+
+    const FIELDS: [u32; 12] = [3, 4, 5, 7, 8, 9, 12, 15, 16, 20, 24, 28];
+
+    fn rat() -> impl Strategy<Value = Rat> {
+        prop_oneof![
+            4 => (-60i64..=60, 1i64..=12).prop_map(|(n, d)| Rat::from_i128(n as i128, d as i128)),
+            1 => (any::<i64>(), 1i64..=i64::MAX).prop_map(|(n, d)| Rat::from_i128(n as i128, d as i128)),
+            1 => Just(Rat::ZERO),
+        ]
+    }
+
+    fn element() -> impl Strategy<Value = (u32, Vec<Rat>, Vec<Rat>)> {
+        proptest::sample::select(FIELDS.to_vec()).prop_flat_map(|n| {
+            let k = totient(n);
+            (
+                Just(n),
+                proptest::collection::vec(rat(), k),
+                proptest::collection::vec(rat(), k),
+            )
+        })
+    }
+
+    proptest! {
+        #![proptest_config(ProptestConfig::with_cases(400))]
+        #[test]
+        fn products((n, a, b) in element()) {
+            let general = multiply_general(&a, &b, n);
+            if let Some(fast) = multiply_small(&a, &b, n) {
+                prop_assert_eq!(fast.to_vec(), general.to_vec());
+            }
+        }
+
+        #[test]
+        fn reductions(n in proptest::sample::select(FIELDS.to_vec()),
+                      dense in proptest::collection::vec(rat(), 1..60)) {
+            let fast = reduce(dense.clone(), n);
+            let general = reduce_general(dense, n);
+            prop_assert_eq!(fast.to_vec(), general);
+        }
+    }
+}
