@@ -158,6 +158,23 @@ pub struct Shell {
 /// Shells s … up to l_max (≤ 4) of a central atom at the origin of a finite group; real
 /// orbitals are named up to g.
 pub fn shells(g: &PointGroup, l_max: usize) -> Vec<Shell> {
+    // Every irrep of a ligand set asks for the same shells: work them out once per group and
+    // shell (acting on the f and g polynomials with every operation of Ih is not free).
+    use std::collections::HashMap;
+    use std::sync::{Arc, Mutex, OnceLock};
+    type Memo = Mutex<HashMap<(String, usize), Arc<Vec<Shell>>>>;
+    static MEMO: OnceLock<Memo> = OnceLock::new();
+    let memo = MEMO.get_or_init(|| Mutex::new(HashMap::new()));
+    let key = (g.name().to_string(), l_max.min(4));
+    if let Some(v) = memo.lock().expect("shell memo").get(&key) {
+        return (**v).clone();
+    }
+    let v = Arc::new(compute_shells(g, l_max));
+    memo.lock().expect("shell memo").insert(key, v.clone());
+    (*v).clone()
+}
+
+fn compute_shells(g: &PointGroup, l_max: usize) -> Vec<Shell> {
     (0..=l_max.min(4))
         .map(|l| {
             let character = orbital_character(g, l);
