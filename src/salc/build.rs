@@ -102,10 +102,10 @@ pub enum SalcError {
 
 /// How long one exact SALC computation may run before it stops with [`SalcError::Ceiling`]:
 /// every command must answer within 2 s, so the exact engine gets 1.5 s of it. An unoptimized
-/// (debug) build does the same work 10–30× slower and gets 20× the time, so that tests of
-/// large cases check the mathematics, not the build profile.
+/// (debug) build does the same work 10–30× slower, on test machines often under load: it gets
+/// 10 minutes, so that tests of large cases check the mathematics, not the build profile.
 pub const EXACT_CEILING: Duration = if cfg!(debug_assertions) {
-    Duration::from_millis(30_000)
+    Duration::from_secs(600)
 } else {
     Duration::from_millis(1500)
 };
