@@ -94,6 +94,11 @@ pub enum Command {
 /// Run a parsed command line (everything but the terminal workspace).
 pub fn run(cli: &Cli) -> CliResult {
     let ascii = cli.ascii;
+    // A command answers within 2 s: exact SALC work counts its ceiling from the start of the
+    // command (the workspace, a long-lived process, counts it per computation).
+    if !matches!(cli.command, None | Some(Command::Open(_))) {
+        crate::salc::count_ceiling_from(std::time::Instant::now());
+    }
     match &cli.command {
         Some(Command::Groups(a)) => table_cmds::groups(a, ascii),
         Some(Command::Table(a)) => table_cmds::table(a, ascii),
