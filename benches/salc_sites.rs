@@ -1,37 +1,18 @@
 //! σ and Cartesian SALCs on every site type (all but the origin) of every finite group: a centre
-//! at the origin and one orbit of H ligands on the site, built as tests/salc_every_site.rs does.
+//! at the origin and one orbit of H ligands on the site (`centre_and_site`, tests/salc_support.rs).
 //! Target: each case ≤ 200 ms (release). Each timing is one run, in process; the irrep
 //! matrices are cached per group, so the first case of a group (which builds them) is reported
 //! apart from the rest ("first" below). A plain `main`, no criterion: one pass is the point.
 //! Whole-process time and peak memory per case: benches/salc_sites_process.sh (see README).
 
-use salcdesk::basis::{self, Placed, Structure};
-use salcdesk::{geom, group, salc};
-use std::sync::Arc;
-use std::time::{Duration, Instant};
+#[path = "../tests/salc_support.rs"]
+mod support;
 
-/// A centre at the origin and one orbit of ligands on the given site type (the helper of
-/// tests/salc_every_site.rs, returning the refusal instead of panicking).
-fn centre_and_site(g: &Arc<group::PointGroup>, site: &str) -> Result<Structure, String> {
-    let ops: Vec<_> = g.ops.iter().map(|o| o.float).collect();
-    // angles away from every axis and plane of the group (the builder refuses atoms that fall
-    // together, e.g. 37° lies 1° from a C2 axis of D5h)
-    let atoms = [(37.0, 13.0), (8.3, 71.0), (53.0, 4.9)]
-        .iter()
-        .find_map(|(t, p)| {
-            geom::build_from_sites(&ops, &format!("Co@origin H@{site}:2.0,{t},{p}")).ok()
-        })
-        .ok_or_else(|| "no placement".to_string())?;
-    let atoms: Vec<Placed> = atoms
-        .into_iter()
-        .map(|a| Placed {
-            symbol: a.symbol().to_string(),
-            position: a.position,
-        })
-        .collect();
-    let bonds = (1..atoms.len()).map(|a| (0, a)).collect();
-    Structure::new(g.clone(), atoms, bonds, 1e-4).map_err(|e| e.to_string())
-}
+use support::centre_and_site;
+
+use salcdesk::basis;
+use salcdesk::{geom, group, salc};
+use std::time::{Duration, Instant};
 
 /// One timed piece of work.
 struct Timing {

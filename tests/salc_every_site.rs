@@ -12,28 +12,6 @@ use salcdesk::basis::{self, Placed, Structure};
 use salcdesk::{geom, group, salc};
 use support::*;
 
-/// A centre at the origin and one orbit of ligands on the given site type.
-fn centre_and_site(g: &std::sync::Arc<group::PointGroup>, site: &str) -> Structure {
-    let ops: Vec<_> = g.ops.iter().map(|o| o.float).collect();
-    // angles away from every axis and plane of the group (the builder refuses atoms that fall
-    // together, e.g. 37° lies 1° from a C2 axis of D5h)
-    let atoms = [(37.0, 13.0), (8.3, 71.0), (53.0, 4.9)]
-        .iter()
-        .find_map(|(t, p)| {
-            geom::build_from_sites(&ops, &format!("Co@origin H@{site}:2.0,{t},{p}")).ok()
-        })
-        .unwrap_or_else(|| panic!("{} {site}: no placement", g.name()));
-    let atoms: Vec<Placed> = atoms
-        .into_iter()
-        .map(|a| Placed {
-            symbol: a.symbol().to_string(),
-            position: a.position,
-        })
-        .collect();
-    let bonds = (1..atoms.len()).map(|a| (0, a)).collect();
-    Structure::new(g.clone(), atoms, bonds, 1e-4).unwrap()
-}
-
 #[test]
 fn sigma_and_cartesian_salcs_on_every_site_of_every_group() {
     let mut cases = 0;
@@ -48,7 +26,7 @@ fn sigma_and_cartesian_salcs_on_every_site_of_every_group() {
             if site == "origin" {
                 continue;
             }
-            let s = centre_and_site(&g, &site);
+            let s = centre_and_site(&g, &site).unwrap_or_else(|e| panic!("{name} {site}: {e}"));
             let ligands: Vec<usize> = (1..s.len()).collect();
             let sigma = basis::sigma(&s, 0, &ligands).unwrap();
             let set = salc::salcs(&sigma).unwrap_or_else(|e| panic!("{name} {site} σ: {e}"));

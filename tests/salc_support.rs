@@ -200,3 +200,29 @@ pub fn c60() -> Structure {
         .collect();
     Structure::new(g, atoms, bonds, 1e-3).unwrap()
 }
+
+/// A centre at the origin and one orbit of ligands on the given site type, or why the builder
+/// refused it (shared by tests/salc_every_site.rs and benches/salc_sites.rs).
+pub fn centre_and_site(
+    g: &std::sync::Arc<salcdesk::group::PointGroup>,
+    site: &str,
+) -> Result<Structure, String> {
+    let ops: Vec<_> = g.ops.iter().map(|o| o.float).collect();
+    // angles away from every axis and plane of the group (the builder refuses atoms that fall
+    // together, e.g. 37° lies 1° from a C2 axis of D5h)
+    let atoms = [(37.0, 13.0), (8.3, 71.0), (53.0, 4.9)]
+        .iter()
+        .find_map(|(t, p)| {
+            salcdesk::geom::build_from_sites(&ops, &format!("Co@origin H@{site}:2.0,{t},{p}")).ok()
+        })
+        .ok_or_else(|| "no placement".to_string())?;
+    let atoms: Vec<Placed> = atoms
+        .into_iter()
+        .map(|a| Placed {
+            symbol: a.symbol().to_string(),
+            position: a.position,
+        })
+        .collect();
+    let bonds = (1..atoms.len()).map(|a| (0, a)).collect();
+    Structure::new(g.clone(), atoms, bonds, 1e-4).map_err(|e| e.to_string())
+}

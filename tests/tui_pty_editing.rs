@@ -148,7 +148,7 @@ fn bands_added_changed_and_deleted_are_saved_and_found_by_a_new_process() {
 }
 
 /// `dumb`, `vt100` and the Linux console: not one byte outside ASCII and no colour code
-/// (bold and reverse video may stay).
+/// (bold and reverse attributes may stay).
 #[test]
 fn limited_terminals_get_plain_ascii_without_colour() {
     for term in ["dumb", "vt100", "linux"] {
