@@ -212,6 +212,49 @@ impl Cyclo {
     pub fn lift(&self, m: u32) -> Vec<BigRational> {
         self.lift_rat(m).iter().map(Rat::to_big).collect()
     }
+    /// The coefficients in Q(ζₘ)'s power basis, or `None` when m is not a multiple of the
+    /// element's storage field.
+    pub(super) fn coeffs_in(&self, m: u32) -> Option<Coeffs> {
+        (self.n <= 1 || m % self.n == 0).then(|| self.lift_rat(m))
+    }
+    /// Writes φ(m) integer numerators (in Q(ζₘ)'s power basis, m a multiple of the storage
+    /// field) into `out` and returns their common denominator, when every part fits machine
+    /// integers.
+    pub(super) fn int_form_into(&self, m: u32, out: &mut [i128]) -> Option<i128> {
+        out.iter_mut().for_each(|x| *x = 0);
+        let lifted;
+        let c: &[Rat] = if self.n <= 1 || self.n == m {
+            &self.coeffs
+        } else {
+            lifted = self.coeffs_in(m)?;
+            &lifted
+        };
+        let mut den: i64 = 1;
+        for r in c {
+            match r {
+                Rat::S(_, 1) => {}
+                Rat::S(_, d) => {
+                    if den % d != 0 {
+                        let g = super::rat::gcd_i64(den, *d);
+                        den = den.checked_mul(d / g)?;
+                    }
+                }
+                Rat::B(_) => return None,
+            }
+        }
+        for (x, r) in out.iter_mut().zip(c) {
+            if let Rat::S(p, d) = r {
+                *x = (*p as i128).checked_mul((den / d) as i128)?;
+            }
+        }
+        Some(den as i128)
+    }
+    /// The element with these coefficients in Q(ζₙ)'s power basis (φ(n) of them).
+    pub(super) fn from_parts(n: u32, coeffs: Coeffs) -> Cyclo {
+        let mut c = Cyclo { n, coeffs };
+        c.normalize();
+        c
+    }
     fn lift_rat(&self, m: u32) -> Coeffs {
         if m == self.n {
             return self.coeffs.clone();

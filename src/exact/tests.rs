@@ -301,3 +301,95 @@ mod fast_path_agrees {
         }
     }
 }
+
+/// The integer-form vectors ([`super::KVec`]) give the same numbers as [`Cyclo`] arithmetic:
+/// products, dot products, v − s·w and the lift from a subfield, on random vectors of the
+/// fields point groups use (their composita too: Q(ζ₆₀) holds √3 and √5), with parts large
+/// enough that 128-bit arithmetic must sometimes decline (then `None`, never a wrong number).
+mod vectors_agree {
+    use super::super::poly::totient;
+    use super::super::{Cyclo, KField, KVec};
+    use num_bigint::BigInt;
+    use num_rational::BigRational;
+    use proptest::prelude::*;
+
+    const FIELDS: [u32; 14] = [1, 3, 4, 5, 7, 8, 9, 12, 15, 16, 20, 24, 28, 60];
+
+    /// A random element of Q(ζₘ); with `big`, now and then a part of 64-bit size.
+    fn number(m: u32, big: bool) -> impl Strategy<Value = Cyclo> {
+        let k = totient(m);
+        let part = prop_oneof![
+            40 => (-40i64..=40, 1i64..=12),
+            if big { 1 } else { 0 } => (any::<i64>(), 1i64..=i64::MAX),
+            15 => Just((0, 1)),
+        ];
+        proptest::collection::vec(part, k).prop_map(move |ps| {
+            // Σ cⱼ ζₘʲ built with the public operations
+            ps.iter()
+                .enumerate()
+                .map(|(j, (p, q))| {
+                    Cyclo::from_rational(BigRational::new(BigInt::from(*p), BigInt::from(*q)))
+                        * Cyclo::zeta(m, j as i64)
+                })
+                .sum()
+        })
+    }
+
+    /// A field n and vectors whose entries lie in subfields of it.
+    fn vectors(big: bool) -> impl Strategy<Value = (u32, Vec<Cyclo>, Vec<Cyclo>, Cyclo)> {
+        proptest::sample::select(FIELDS.to_vec()).prop_flat_map(move |n| {
+            let subs: Vec<u32> = (1..=n).filter(|m| n % m == 0 && m % 4 != 2).collect();
+            let entry = proptest::sample::select(subs).prop_flat_map(move |m| number(m, big));
+            (
+                Just(n),
+                proptest::collection::vec(entry.clone(), 1..6),
+                proptest::collection::vec(entry.clone(), 6),
+                entry,
+            )
+        })
+    }
+
+    /// Same numbers as Cyclo arithmetic; `small` parts must never be declined.
+    fn agree(
+        n: u32,
+        a: &[Cyclo],
+        b: &[Cyclo],
+        s: &Cyclo,
+        small: bool,
+    ) -> Result<(), TestCaseError> {
+        let f = KField::get(n);
+        let b = &b[..a.len()];
+        let (Some(ka), Some(kb)) = (KVec::from_cyclos(&f, a), KVec::from_cyclos(&f, b)) else {
+            prop_assert!(!small, "small numbers declined");
+            return Ok(()); // declined: parts beyond 128 bits
+        };
+        prop_assert!(ka.to_cyclos(&f) == a);
+        let d = ka.dot(&kb, &f);
+        prop_assert!(d.is_some() || !small, "small dot declined");
+        if let Some(d) = d {
+            let exact: Cyclo = a.iter().zip(b).map(|(x, y)| x * y).sum();
+            prop_assert!(d == exact);
+        }
+        let mut kc = ka.clone();
+        let done = kc.sub_scaled(s, &kb, &f);
+        prop_assert!(done.is_some() || !small, "small update declined");
+        if done.is_some() {
+            let exact: Vec<Cyclo> = a.iter().zip(b).map(|(x, y)| x - &(s * y)).collect();
+            prop_assert!(kc.to_cyclos(&f) == exact);
+        }
+        Ok(())
+    }
+
+    proptest! {
+        #![proptest_config(ProptestConfig::with_cases(300))]
+        #[test]
+        fn small_numbers((n, a, b, s) in vectors(false)) {
+            agree(n, &a, &b, &s, true)?;
+        }
+
+        #[test]
+        fn with_64_bit_parts((n, a, b, s) in vectors(true)) {
+            agree(n, &a, &b, &s, false)?;
+        }
+    }
+}

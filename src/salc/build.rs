@@ -7,6 +7,7 @@
 //! other partners follow from R·s₁ = Σᵢ sᵢ·D(R)ᵢ₁ for d operations with independent columns,
 //! which costs d applications of R instead of a sum over the group.
 
+use super::fast::{common_field, FastBasis, FastIrrep};
 use super::irreps::{real_irreps, IrrepError, Matrix, RealIrrep};
 use super::project::{inverses, partner_one_images, transfer};
 use crate::basis::{Basis, Member};
@@ -14,6 +15,7 @@ use crate::exact::{solve_field, Cyclo};
 use crate::group::PointGroup;
 use num_rational::BigRational;
 use num_traits::One;
+use std::collections::HashMap;
 use std::sync::Arc;
 use std::time::{Duration, Instant};
 
@@ -65,6 +67,8 @@ pub struct SalcSet {
     pub multiplicities: Vec<u64>,
     pub salcs: Vec<Salc>,
     pub notes: Vec<String>,
+    /// For each irrep with SALCs (index), the arithmetic its SALCs were computed on.
+    pub arithmetic: Vec<(usize, Arithmetic)>,
 }
 
 /// Vectors to place first in an irrep's span (translations, rotations), with their role.
@@ -159,22 +163,89 @@ pub fn salcs_with_seeds(
     seeds: &[Seed],
     only: Option<usize>,
 ) -> Result<SalcSet, SalcError> {
+    salcs_on(b, seeds, only, Arithmetic::Fastest)
+}
+
+/// Which arithmetic the SALC engine runs on. Both give the same exact numbers; `General` is
+/// there so tests can compare the two.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Arithmetic {
+    /// Machine integers over one field per irrep, big rationals only where those overflow.
+    Fastest,
+    /// [`Cyclo`] numbers throughout.
+    General,
+}
+
+/// [`salcs_with_seeds`] on a chosen arithmetic.
+pub fn salcs_on(
+    b: &Basis,
+    seeds: &[Seed],
+    only: Option<usize>,
+    arithmetic: Arithmetic,
+) -> Result<SalcSet, SalcError> {
     let irreps = real_irreps(&b.group)?;
     let mult = real_multiplicities(b, &irreps)?;
     let inv = inverses(b);
     let reps: Vec<usize> = b.site_orbits().iter().map(|o| o[0]).collect();
     let mut out = Vec::new();
     let clock = Ceiling::new();
+    // the integer-form engine, per irrep over the one field holding the basis images, the
+    // irrep's matrices and the seeds (Q(ζ₅) for most Ih irreps, Q(ζ₆₀) where √3 enters too)
+    let base_field = (arithmetic == Arithmetic::Fastest)
+        .then_some(())
+        .and_then(|()| {
+            common_field(
+                b.images
+                    .iter()
+                    .flatten()
+                    .flatten()
+                    .map(|(_, c)| c)
+                    .chain(seeds.iter().flat_map(|s| s.vector.iter())),
+            )
+        });
+    let mut fast_bases: HashMap<u32, Option<FastBasis>> = HashMap::new();
+    let mut arith = Vec::new();
     for (x, ir) in irreps.iter().enumerate() {
         let n = mult[x] as usize;
         if n == 0 || only.is_some_and(|o| o != x) {
             continue;
         }
-        let firsts = partner_ones(b, ir, &inv, &reps, seeds, x, n, &clock)?;
         let recipe = PartnerRecipe::new(ir);
-        for (c, (s1, role)) in firsts.into_iter().enumerate() {
-            clock.check(&ir.label)?;
-            let tuple = recipe.partners(b, s1);
+        let field = base_field.and_then(|nb| {
+            let ni = common_field(ir.mats.iter().flatten().flatten())?;
+            common_field([Cyclo::zeta(nb, 1), Cyclo::zeta(ni, 1)].iter())
+        });
+        let fast_basis = field.and_then(|n| {
+            fast_bases
+                .entry(n)
+                .or_insert_with(|| FastBasis::new(b, n))
+                .as_ref()
+        });
+        let quick = match fast_basis {
+            Some(fb) => fast_tuples(b, fb, ir, &recipe, &inv, &reps, seeds, x, n, &clock)?,
+            None => None,
+        };
+        arith.push((
+            x,
+            if quick.is_some() {
+                Arithmetic::Fastest
+            } else {
+                Arithmetic::General
+            },
+        ));
+        let tuples = match quick {
+            Some(t) => t,
+            None => {
+                let firsts = partner_ones(b, ir, &inv, &reps, seeds, x, n, &clock)?;
+                let mut t = Vec::with_capacity(firsts.len());
+                for (s1, role) in firsts {
+                    clock.check(&ir.label)?;
+                    t.push((recipe.partners(b, s1), role));
+                }
+                t
+            }
+        };
+        for (c, (tuple, role)) in tuples.into_iter().enumerate() {
             let tuple = tidy_tuple(tuple);
             for (p, v) in tuple.into_iter().enumerate() {
                 let (coefficients, norm2) = display_form(v);
@@ -203,6 +274,7 @@ pub fn salcs_with_seeds(
         multiplicities: mult,
         salcs: out,
         notes,
+        arithmetic: arith,
     })
 }
 
@@ -297,6 +369,122 @@ fn partner_ones(
         });
     }
     Ok(found)
+}
+
+/// The d partners of one SALC.
+type Tuple = Vec<Vec<Cyclo>>;
+
+/// Partner tuples of one irrep on the integer-form engine: the same steps as [`partner_ones`]
+/// and [`PartnerRecipe::partners`], so the same vectors up to positive rational factors (which
+/// `tidy_tuple` removes). `Ok(None)` when a number outgrew 128 bits.
+#[allow(clippy::too_many_arguments)]
+fn fast_tuples(
+    b: &Basis,
+    fb: &FastBasis,
+    ir: &RealIrrep,
+    recipe: &PartnerRecipe,
+    inv: &[usize],
+    reps: &[usize],
+    seeds: &[Seed],
+    x: usize,
+    n: usize,
+    clock: &Ceiling,
+) -> Result<Option<Vec<(Tuple, Role)>>, SalcError> {
+    use crate::exact::{KTable, KVec};
+    let f = &fb.f;
+    let Some(fi) = FastIrrep::new(fb, ir) else {
+        return Ok(None);
+    };
+    let Some(minv) = KTable::from_cyclos(f, recipe.minv.iter().flatten()) else {
+        return Ok(None);
+    };
+    let complex_type = ir.pair.is_some();
+    let mut found: Vec<(KVec, Role)> = Vec::new();
+    let mut ortho: Vec<(KVec, Cyclo)> = Vec::new();
+    let inv_len2 = |v: &KVec| -> Option<Cyclo> {
+        Some(
+            v.dot(v, f)?
+                .inv()
+                .expect("a nonzero real vector has length² > 0"),
+        )
+    };
+    // Some(()) = done (kept or rejected); None = overflow
+    let offer = |mut v: KVec,
+                 role: Role,
+                 found: &mut Vec<(KVec, Role)>,
+                 ortho: &mut Vec<(KVec, Cyclo)>|
+     -> Option<()> {
+        for (c, nc) in ortho.iter() {
+            let d = v.dot(c, f)?;
+            if d.is_zero() {
+                continue;
+            }
+            let s = &d * nc;
+            v.sub_scaled(&s, c, f)?;
+        }
+        if v.is_zero() {
+            return Some(());
+        }
+        if complex_type {
+            for p in super::fast::partners(fb, &recipe.ops, &minv, &v)?
+                .into_iter()
+                .skip(1)
+            {
+                let n = inv_len2(&p)?;
+                ortho.push((p, n));
+            }
+        }
+        let n = inv_len2(&v)?;
+        ortho.push((v.clone(), n));
+        found.push((v, role));
+        Some(())
+    };
+    for seed in seeds.iter().filter(|s| s.irreps.contains(&x)) {
+        let allowed = seed.irreps.iter().filter(|&&i| i == x).count();
+        let have = found.iter().filter(|(_, r)| *r == seed.role).count();
+        if found.len() == n || have >= allowed {
+            continue;
+        }
+        let Some(v) = KVec::from_cyclos(f, &seed.vector).and_then(|v| fi.transfer_11(fb, inv, &v))
+        else {
+            return Ok(None);
+        };
+        if offer(v, seed.role, &mut found, &mut ortho).is_none() {
+            return Ok(None);
+        }
+    }
+    'outer: for &site in reps {
+        for m in b.members_of(site) {
+            let Some(images) = fi.partner_one_images(fb, inv, m) else {
+                return Ok(None);
+            };
+            for v in images {
+                if found.len() == n {
+                    break 'outer;
+                }
+                clock.check(&ir.label)?;
+                if offer(v, Role::Plain, &mut found, &mut ortho).is_none() {
+                    return Ok(None);
+                }
+            }
+        }
+    }
+    if found.len() != n {
+        return Err(SalcError::Count {
+            irrep: ir.label.clone(),
+            found: found.len(),
+            expected: n,
+        });
+    }
+    let mut out = Vec::with_capacity(found.len());
+    for (s1, role) in found {
+        clock.check(&ir.label)?;
+        let Some(tuple) = super::fast::partners(fb, &recipe.ops, &minv, &s1) else {
+            return Ok(None);
+        };
+        out.push((tuple.iter().map(|v| v.to_cyclos(f)).collect(), role));
+    }
+    Ok(Some(out))
 }
 
 /// d operations whose first matrix columns are independent, and the inverse of that d×d

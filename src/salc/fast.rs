@@ -1,0 +1,241 @@
+//! The SALC engine's arithmetic on machine integers: the basis images and an irrep's matrices
+//! are put over one field Q(ζₙ) and one denominator each ([`KTable`]), and the vectors the
+//! engine builds are [`KVec`]s. The steps are those of `build` (projection of one site's
+//! members, Gram–Schmidt, partners from d operations), so the results are the same numbers;
+//! any overflow of 128-bit arithmetic returns `None` and `build` redoes the irrep on
+//! [`Cyclo`]s with big rationals.
+
+use super::irreps::RealIrrep;
+use crate::basis::Basis;
+use crate::exact::{Cyclo, CycloKey, KField, KTable, KVec};
+use std::collections::HashMap;
+use std::sync::Arc;
+
+/// Largest field degree φ(n) worth the integer form (every molecular table is far below).
+const MAX_PHI: usize = 24;
+
+/// A basis's operation images over one field: `cols[op][m]` lists (k, index into `table`).
+pub(super) struct FastBasis {
+    pub f: Arc<KField>,
+    table: KTable,
+    cols: Vec<Vec<Vec<(usize, usize)>>>,
+    dim: usize,
+}
+
+/// The smallest storage field holding every number (lcm of the fields), if small enough.
+pub(super) fn common_field<'a>(nums: impl Iterator<Item = &'a Cyclo>) -> Option<u32> {
+    let mut n: u32 = 1;
+    for c in nums {
+        let m = c.field_order().max(1);
+        if n % m != 0 {
+            let g = gcd(n, m);
+            n = n.checked_mul(m / g)?;
+            if n > 10_000 {
+                return None;
+            }
+        }
+    }
+    Some(n)
+}
+
+fn gcd(mut a: u32, mut b: u32) -> u32 {
+    while b != 0 {
+        (a, b) = (b, a % b);
+    }
+    a
+}
+
+impl FastBasis {
+    /// The basis over a field of order n (a multiple of every image entry's field).
+    pub fn new(b: &Basis, n: u32) -> Option<FastBasis> {
+        let f = KField::get(n);
+        if f.phi() > MAX_PHI {
+            return None;
+        }
+        // the images repeat a few numbers (an operation's matrix entries, ±1) many times:
+        // each distinct number is converted once
+        let mut entries: Vec<&Cyclo> = Vec::new();
+        let mut seen: HashMap<CycloKey, usize> = HashMap::new();
+        let cols = b
+            .images
+            .iter()
+            .map(|op| {
+                op.iter()
+                    .map(|col| {
+                        col.iter()
+                            .map(|(k, c)| {
+                                let i = *seen.entry(c.key()).or_insert_with(|| {
+                                    entries.push(c);
+                                    entries.len() - 1
+                                });
+                                (*k, i)
+                            })
+                            .collect()
+                    })
+                    .collect()
+            })
+            .collect();
+        let table = KTable::from_cyclos(&f, entries.into_iter())?;
+        Some(FastBasis {
+            f,
+            table,
+            cols,
+            dim: b.dim(),
+        })
+    }
+
+    /// R_op·v.
+    pub fn apply(&self, op: usize, v: &KVec) -> Option<KVec> {
+        let phi = self.f.phi();
+        let mut out = KVec::zero(self.dim, phi);
+        for (m, col) in self.cols[op].iter().enumerate() {
+            let x = v.entry(m, phi);
+            if x.iter().all(|&a| a == 0) {
+                continue;
+            }
+            for &(k, i) in col {
+                self.f.mul_acc(
+                    &mut out.num[k * phi..(k + 1) * phi],
+                    self.table.at(i, phi),
+                    x,
+                )?;
+            }
+        }
+        out.den = self.table.den.checked_mul(v.den)?;
+        out.lowest_terms();
+        Some(out)
+    }
+}
+
+/// An irrep's matrices over the basis's field: entry (op, i, j) at op·d² + i·d + j.
+pub(super) struct FastIrrep {
+    table: KTable,
+    d: usize,
+}
+
+impl FastIrrep {
+    pub fn new(fb: &FastBasis, ir: &RealIrrep) -> Option<FastIrrep> {
+        let table = KTable::from_cyclos(&fb.f, ir.mats.iter().flatten().flatten())?;
+        Some(FastIrrep { table, d: ir.dim })
+    }
+    #[inline]
+    fn at(&self, op: usize, i: usize, j: usize, phi: usize) -> &[i128] {
+        self.table.at(op * self.d * self.d + i * self.d + j, phi)
+    }
+
+    /// P_1k e_m for k = 1 … d (without d/h), as in `project::partner_one_images`.
+    pub fn partner_one_images(&self, fb: &FastBasis, inv: &[usize], m: usize) -> Option<Vec<KVec>> {
+        let phi = fb.f.phi();
+        let mut out = vec![KVec::zero(fb.dim, phi); self.d];
+        for (o, cols) in fb.cols.iter().enumerate() {
+            for (k, acc) in out.iter_mut().enumerate() {
+                let f = self.at(inv[o], k, 0, phi);
+                if f.iter().all(|&x| x == 0) {
+                    continue;
+                }
+                for &(t, i) in &cols[m] {
+                    fb.f.mul_acc(&mut acc.num[t * phi..(t + 1) * phi], fb.table.at(i, phi), f)?;
+                }
+            }
+        }
+        let den = self.table.den.checked_mul(fb.table.den)?;
+        for v in &mut out {
+            v.den = den;
+            v.lowest_terms();
+        }
+        Some(out)
+    }
+
+    /// P_11 v (without d/h), as in `project::transfer(…, 0, 0, v)`.
+    pub fn transfer_11(&self, fb: &FastBasis, inv: &[usize], v: &KVec) -> Option<KVec> {
+        let phi = fb.f.phi();
+        let mut out = KVec::zero(fb.dim, phi);
+        let mut fx = vec![0i128; phi];
+        for (o, cols) in fb.cols.iter().enumerate() {
+            let f = self.at(inv[o], 0, 0, phi);
+            if f.iter().all(|&x| x == 0) {
+                continue;
+            }
+            for (m, col) in cols.iter().enumerate() {
+                let x = v.entry(m, phi);
+                if x.iter().all(|&a| a == 0) {
+                    continue;
+                }
+                fx.iter_mut().for_each(|a| *a = 0);
+                fb.f.mul_acc(&mut fx, f, x)?;
+                for &(k, i) in col {
+                    fb.f.mul_acc(
+                        &mut out.num[k * phi..(k + 1) * phi],
+                        fb.table.at(i, phi),
+                        &fx,
+                    )?;
+                }
+            }
+        }
+        out.den = self
+            .table
+            .den
+            .checked_mul(fb.table.den)?
+            .checked_mul(v.den)?;
+        out.lowest_terms();
+        Some(out)
+    }
+}
+
+/// sᵢ = Σ_k minv[i][k]·R_k·s₁ over the field (see `build::PartnerRecipe`).
+pub(super) fn partners(
+    fb: &FastBasis,
+    ops: &[usize],
+    minv: &KTable,
+    s1: &KVec,
+) -> Option<Vec<KVec>> {
+    let d = ops.len();
+    if d == 1 {
+        return Some(vec![s1.clone()]);
+    }
+    let phi = fb.f.phi();
+    let images: Vec<KVec> = ops
+        .iter()
+        .map(|&o| fb.apply(o, s1))
+        .collect::<Option<_>>()?;
+    // bring the images to one denominator
+    let mut den = 1i128;
+    for im in &images {
+        den = lcm(den, im.den)?;
+    }
+    let mut out = Vec::with_capacity(d);
+    for i in 0..d {
+        let mut v = KVec::zero(fb.dim, phi);
+        for (k, img) in images.iter().enumerate() {
+            let f = minv.at(i * d + k, phi);
+            if f.iter().all(|&x| x == 0) {
+                continue;
+            }
+            let scale = den / img.den;
+            let mut fs = f.to_vec();
+            if scale != 1 {
+                for x in &mut fs {
+                    *x = x.checked_mul(scale)?;
+                }
+            }
+            for (acc, x) in v.num.chunks_mut(phi).zip(img.num.chunks(phi)) {
+                if x.iter().all(|&a| a == 0) {
+                    continue;
+                }
+                fb.f.mul_acc(acc, &fs, x)?;
+            }
+        }
+        v.den = minv.den.checked_mul(den)?;
+        v.lowest_terms();
+        out.push(v);
+    }
+    Some(out)
+}
+
+fn lcm(a: i128, b: i128) -> Option<i128> {
+    let (mut x, mut y) = (a.unsigned_abs(), b.unsigned_abs());
+    while y != 0 {
+        (x, y) = (y, x % y);
+    }
+    (a / x as i128).checked_mul(b)
+}

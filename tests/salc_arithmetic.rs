@@ -1,0 +1,80 @@
+//! The SALC engine runs on machine integers over one cyclotomic field per irrep and falls back
+//! to big-rational [`Cyclo`] numbers only on overflow. Both arithmetics must give the very same
+//! SALCs — same irreps, copies, partners, roles, exact coefficients and norms — on every site
+//! type of every finite group (σ basis and Cartesian displacements), and on C60 stretches.
+// Source: exactness of the projection/transfer-operator method, Cotton, Chemical Applications
+// of Group Theory, 3rd ed., §4.5 and ch. 8; the comparison is between two exact paths, so any
+// difference at all is a defect.
+
+#[path = "salc_support.rs"]
+mod support;
+
+use salcdesk::basis::{self, Basis};
+use salcdesk::salc::{self, Arithmetic};
+use salcdesk::{geom, group};
+use support::*;
+
+fn same_salcs(b: &Basis, what: &str) {
+    let fast = salc::salcs_on(b, &[], None, Arithmetic::Fastest)
+        .unwrap_or_else(|e| panic!("{what} (integer form): {e}"));
+    let general = salc::salcs_on(b, &[], None, Arithmetic::General)
+        .unwrap_or_else(|e| panic!("{what} (general): {e}"));
+    assert_eq!(fast.multiplicities, general.multiplicities, "{what}");
+    // small cases never overflow 128 bits: every irrep ran on machine integers
+    assert!(
+        fast.arithmetic
+            .iter()
+            .all(|(_, a)| *a == Arithmetic::Fastest),
+        "{what}: {:?}",
+        fast.arithmetic
+    );
+    assert!(general
+        .arithmetic
+        .iter()
+        .all(|(_, a)| *a == Arithmetic::General));
+    assert_eq!(fast.salcs.len(), general.salcs.len(), "{what}");
+    for (x, y) in fast.salcs.iter().zip(&general.salcs) {
+        let at = format!("{what} {} copy {} partner {}", x.label, x.copy, x.partner);
+        assert_eq!(
+            (x.irrep, x.copy, x.partner, x.role),
+            (y.irrep, y.copy, y.partner, y.role),
+            "{at}"
+        );
+        assert!(
+            x.coefficients == y.coefficients,
+            "{at}: coefficients differ"
+        );
+        assert!(x.norm2 == y.norm2, "{at}: norm² differs");
+    }
+}
+
+#[test]
+fn both_arithmetics_give_the_same_salcs_on_every_site_of_every_group() {
+    let mut cases = 0;
+    for name in group::names() {
+        let g = group::load(name).unwrap();
+        if g.is_linear() {
+            continue;
+        }
+        let ops: Vec<_> = g.ops.iter().map(|o| o.float).collect();
+        let types = geom::site_types(&ops).unwrap();
+        for site in geom::site_names(&types) {
+            if site == "origin" {
+                continue;
+            }
+            let s = centre_and_site(&g, &site).unwrap_or_else(|e| panic!("{name} {site}: {e}"));
+            let ligands: Vec<usize> = (1..s.len()).collect();
+            let sigma = basis::sigma(&s, 0, &ligands).unwrap();
+            same_salcs(&sigma, &format!("{name} {site} σ"));
+            same_salcs(&basis::cartesian(&s), &format!("{name} {site} xyz"));
+            cases += 1;
+        }
+    }
+    assert!(cases > 100, "only {cases} site cases");
+}
+
+#[test]
+fn both_arithmetics_give_the_same_c60_stretch_salcs() {
+    let s = c60();
+    same_salcs(&basis::stretches(&s, &s.bonds).unwrap(), "C60 stretches");
+}
