@@ -603,6 +603,6 @@ pub fn display_form(v: Vec<Cyclo>) -> (Vec<Cyclo>, Cyclo) {
         }
         None => v,
     };
-    let n2 = dot(&w, &w);
+    let n2 = super::fast::self_dot(&w).unwrap_or_else(|| dot(&w, &w));
     (w, n2)
 }

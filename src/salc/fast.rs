@@ -239,3 +239,14 @@ fn lcm(a: i128, b: i128) -> Option<i128> {
     }
     (a / x as i128).checked_mul(b)
 }
+
+/// Σ vᵢ² on machine integers over the vector's own field (`None`: too large, or fields too
+/// big; the caller then uses Cyclo arithmetic).
+pub(super) fn self_dot(v: &[Cyclo]) -> Option<Cyclo> {
+    let f = KField::get(common_field(v.iter())?);
+    if f.phi() > MAX_PHI {
+        return None;
+    }
+    let k = KVec::from_cyclos(&f, v)?;
+    k.dot(&k, &f)
+}
