@@ -1,5 +1,6 @@
-//! The SALC engine runs on machine integers over one cyclotomic field per irrep and falls back
-//! to big-rational [`Cyclo`] numbers only on overflow. Both arithmetics must give the very same
+//! The SALC engine runs on machine integers over one cyclotomic field per irrep, on big
+//! integers over that field where 128 bits overflow, and on [`Cyclo`] numbers only where
+//! neither applies. All three arithmetics must give the very same
 //! SALCs — same irreps, copies, partners, roles, exact coefficients and norms — on every site
 //! type of every finite group (σ basis and Cartesian displacements), and on C60 stretches.
 // Source: exactness of the projection/transfer-operator method, Cotton, Chemical Applications
@@ -10,28 +11,36 @@
 mod support;
 
 use salcdesk::basis::{self, Basis};
-use salcdesk::salc::{self, Arithmetic};
+use salcdesk::salc::{self, Arithmetic, SalcSet};
 use salcdesk::{geom, group};
 use support::*;
 
 fn same_salcs(b: &Basis, what: &str) {
     let fast = salc::salcs_on(b, &[], None, Arithmetic::Fastest)
         .unwrap_or_else(|e| panic!("{what} (integer form): {e}"));
+    let big = salc::salcs_on(b, &[], None, Arithmetic::BigIntegers)
+        .unwrap_or_else(|e| panic!("{what} (big integers): {e}"));
     let general = salc::salcs_on(b, &[], None, Arithmetic::General)
         .unwrap_or_else(|e| panic!("{what} (general): {e}"));
-    assert_eq!(fast.multiplicities, general.multiplicities, "{what}");
     // small cases never overflow 128 bits: every irrep ran on machine integers
+    let ran = |s: &SalcSet, a: Arithmetic| s.arithmetic.iter().all(|(_, x)| *x == a);
     assert!(
-        fast.arithmetic
-            .iter()
-            .all(|(_, a)| *a == Arithmetic::Fastest),
+        ran(&fast, Arithmetic::Fastest),
         "{what}: {:?}",
         fast.arithmetic
     );
-    assert!(general
-        .arithmetic
-        .iter()
-        .all(|(_, a)| *a == Arithmetic::General));
+    assert!(
+        ran(&big, Arithmetic::BigIntegers),
+        "{what}: {:?}",
+        big.arithmetic
+    );
+    assert!(ran(&general, Arithmetic::General), "{what}");
+    compare(&fast, &general, what);
+    compare(&big, &general, &format!("{what}, big integers"));
+}
+
+fn compare(fast: &SalcSet, general: &SalcSet, what: &str) {
+    assert_eq!(fast.multiplicities, general.multiplicities, "{what}");
     assert_eq!(fast.salcs.len(), general.salcs.len(), "{what}");
     for (x, y) in fast.salcs.iter().zip(&general.salcs) {
         let at = format!("{what} {} copy {} partner {}", x.label, x.copy, x.partner);

@@ -9,6 +9,9 @@
 
 use super::cyclo::Cyclo;
 use super::poly::{cyclotomic, from_integer_form, totient};
+use num_bigint::BigInt;
+use num_rational::BigRational;
+use num_traits::{One, Zero};
 use std::collections::HashMap;
 use std::sync::{Arc, Mutex, OnceLock};
 
@@ -74,7 +77,41 @@ impl KField {
 
     /// acc += a·b in the field (a, b, acc: φ numerators each).
     #[inline]
-    pub fn mul_acc(&self, acc: &mut [i128], a: &[i128], b: &[i128]) -> Option<()> {
+    pub fn mul_acc<I: KInt>(&self, acc: &mut [I], a: &[I], b: &[I]) -> Option<()> {
+        I::mul_acc(self, acc, a, b)
+    }
+
+    /// The same on big integers (never overflows).
+    fn mul_acc_big(&self, acc: &mut [BigInt], a: &[BigInt], b: &[BigInt]) {
+        let phi = self.phi;
+        let mut conv: Vec<BigInt> = vec![Zero::zero(); 2 * phi - 1];
+        for (i, x) in a.iter().enumerate() {
+            if Zero::is_zero(x) {
+                continue;
+            }
+            for (j, y) in b.iter().enumerate() {
+                if !Zero::is_zero(y) {
+                    conv[i + j] += x * y;
+                }
+            }
+        }
+        for (x, c) in acc.iter_mut().zip(conv.iter()) {
+            *x += c;
+        }
+        for (j, c) in conv[phi..].iter().enumerate() {
+            if Zero::is_zero(c) {
+                continue;
+            }
+            for (x, &r) in acc.iter_mut().zip(&self.high[j]) {
+                if r != 0 {
+                    *x += c * BigInt::from(r);
+                }
+            }
+        }
+    }
+
+    #[inline]
+    fn mul_acc_i128(&self, acc: &mut [i128], a: &[i128], b: &[i128]) -> Option<()> {
         let phi = self.phi;
         if phi == 1 {
             acc[0] = acc[0].checked_add(a[0].checked_mul(b[0])?)?;
@@ -94,7 +131,7 @@ impl KField {
             return Some(());
         }
         if b[1..].iter().all(|&x| x == 0) {
-            return self.mul_acc(acc, b, a);
+            return self.mul_acc_i128(acc, b, a);
         }
         let mut conv = [0i128; 64];
         let conv = if 2 * phi - 1 <= 64 {
@@ -232,63 +269,55 @@ fn gcd_u128(mut a: u128, mut b: u128) -> u128 {
     }
 }
 
-fn lcm_i128(a: i128, b: i128) -> Option<i128> {
-    if a == b || b == 1 {
-        return Some(a);
-    }
-    let g = gcd_u128(a.unsigned_abs(), b.unsigned_abs()) as i128;
-    (a / g).checked_mul(b)
-}
-
 /// A vector of `len` entries of one field over one positive denominator.
 #[derive(Clone, Debug)]
-pub struct KVec {
-    pub num: Vec<i128>,
-    pub den: i128,
+pub struct KVec<I = i128> {
+    pub num: Vec<I>,
+    pub den: I,
 }
 
-impl KVec {
+impl<I: KInt> KVec<I> {
     /// The zero vector of `len` entries of a field of degree φ.
-    pub fn zero(len: usize, phi: usize) -> KVec {
+    pub fn zero(len: usize, phi: usize) -> KVec<I> {
         KVec {
-            num: vec![0; len * phi],
-            den: 1,
+            num: vec![I::zero(); len * phi],
+            den: I::from_i128(1),
         }
     }
 
     /// Entry `i` (φ numerators).
     #[inline]
-    pub fn entry(&self, i: usize, phi: usize) -> &[i128] {
+    pub fn entry(&self, i: usize, phi: usize) -> &[I] {
         &self.num[i * phi..(i + 1) * phi]
     }
 
     pub fn is_zero(&self) -> bool {
-        self.num.iter().all(|&x| x == 0)
+        self.num.iter().all(I::is_zero)
     }
 
     /// From exact numbers, all in the field.
-    pub fn from_cyclos(f: &KField, v: &[Cyclo]) -> Option<KVec> {
+    pub fn from_cyclos(f: &KField, v: &[Cyclo]) -> Option<KVec<I>> {
         Self::from_iter(f, v.iter())
     }
 
     /// From exact numbers, all in the field, in order.
-    pub fn from_iter<'a>(f: &KField, v: impl Iterator<Item = &'a Cyclo>) -> Option<KVec> {
+    pub fn from_iter<'a>(f: &KField, v: impl Iterator<Item = &'a Cyclo>) -> Option<KVec<I>> {
         let phi = f.phi;
-        let mut num: Vec<i128> = Vec::with_capacity(v.size_hint().0 * phi);
-        let mut dens: Vec<i128> = Vec::with_capacity(v.size_hint().0);
-        let mut den = 1i128;
+        let mut num: Vec<I> = Vec::with_capacity(v.size_hint().0 * phi);
+        let mut dens: Vec<I> = Vec::with_capacity(v.size_hint().0);
+        let mut den = I::from_i128(1);
         for c in v {
             let at = num.len();
-            num.resize(at + phi, 0);
-            let d = f.elem_into(c, &mut num[at..])?;
-            den = lcm_i128(den, d)?;
+            num.resize(at + phi, I::zero());
+            let d = I::elem_into(f, c, &mut num[at..])?;
+            den = lcm(&den, &d)?;
             dens.push(d);
         }
         for (chunk, d) in num.chunks_mut(phi).zip(&dens) {
-            let s = den / d;
-            if s != 1 {
+            let s = den.div_exact(d);
+            if !s.is_one() {
                 for x in chunk {
-                    *x = x.checked_mul(s)?;
+                    *x = x.mul(&s)?;
                 }
             }
         }
@@ -302,10 +331,10 @@ impl KVec {
         self.num
             .chunks(f.phi)
             .map(|c| {
-                if c.iter().all(|&x| x == 0) {
+                if c.iter().all(I::is_zero) {
                     Cyclo::zero()
                 } else {
-                    f.cyclo(c, self.den)
+                    I::cyclo(f, c, &self.den)
                 }
             })
             .collect()
@@ -313,59 +342,60 @@ impl KVec {
 
     /// Divide numerators and denominator by their gcd.
     pub fn lowest_terms(&mut self) {
-        let mut g = self.den.unsigned_abs();
-        for &x in &self.num {
-            if g == 1 {
+        let mut g = self.den.gcd(&I::zero());
+        for x in &self.num {
+            if g.is_one() {
                 return;
             }
-            if x != 0 {
-                g = gcd_u128(g, x.unsigned_abs());
+            if !x.is_zero() {
+                g = g.gcd(x);
             }
         }
-        if g > 1 {
-            let g = g as i128;
+        if !g.is_one() && !g.is_zero() {
             for x in &mut self.num {
-                *x /= g;
+                *x = x.div_exact(&g);
             }
-            self.den /= g;
+            self.den = self.den.div_exact(&g);
         }
     }
 
     /// Σ aᵢbᵢ (no conjugation) as an exact number.
-    pub fn dot(&self, other: &KVec, f: &KField) -> Option<Cyclo> {
+    pub fn dot(&self, other: &KVec<I>, f: &KField) -> Option<Cyclo> {
         let phi = f.phi;
-        let mut acc = vec![0i128; phi];
+        let mut acc = vec![I::zero(); phi];
         for (a, b) in self.num.chunks(phi).zip(other.num.chunks(phi)) {
-            if a.iter().all(|&x| x == 0) || b.iter().all(|&x| x == 0) {
+            if a.iter().all(I::is_zero) || b.iter().all(I::is_zero) {
                 continue;
             }
             f.mul_acc(&mut acc, a, b)?;
         }
-        Some(f.cyclo(&acc, self.den.checked_mul(other.den)?))
+        Some(I::cyclo(f, &acc, &self.den.mul(&other.den)?))
     }
 
     /// self − s·other for a field number s.
-    pub fn sub_scaled(&mut self, s: &Cyclo, other: &KVec, f: &KField) -> Option<()> {
-        let (sn, sd) = f.elem(s)?;
-        let od = sd.checked_mul(other.den)?;
-        let den = lcm_i128(self.den, od)?;
-        let ks = den / self.den;
-        let ko = den / od;
+    pub fn sub_scaled(&mut self, s: &Cyclo, other: &KVec<I>, f: &KField) -> Option<()> {
         let phi = f.phi;
-        let mut prod = vec![0i128; phi];
+        let mut sn = vec![I::zero(); phi];
+        let sd = I::elem_into(f, s, &mut sn)?;
+        let od = sd.mul(&other.den)?;
+        let den = lcm(&self.den, &od)?;
+        let ks = den.div_exact(&self.den);
+        let ko = den.div_exact(&od);
+        let mut prod = vec![I::zero(); phi];
         for (i, o) in other.num.chunks(phi).enumerate() {
-            if o.iter().all(|&x| x == 0) {
-                if ks != 1 {
-                    for x in &mut self.num[i * phi..(i + 1) * phi] {
-                        *x = x.checked_mul(ks)?;
+            let mine = &mut self.num[i * phi..(i + 1) * phi];
+            if o.iter().all(I::is_zero) {
+                if !ks.is_one() {
+                    for x in mine {
+                        *x = x.mul(&ks)?;
                     }
                 }
                 continue;
             }
-            prod.iter_mut().for_each(|x| *x = 0);
+            prod.iter_mut().for_each(|x| *x = I::zero());
             f.mul_acc(&mut prod, &sn, o)?;
-            for (x, p) in self.num[i * phi..(i + 1) * phi].iter_mut().zip(&prod) {
-                *x = x.checked_mul(ks)?.checked_sub(p.checked_mul(ko)?)?;
+            for (x, p) in mine.iter_mut().zip(&prod) {
+                *x = x.mul(&ks)?.sub(&p.mul(&ko)?)?;
             }
         }
         self.den = den;
@@ -374,17 +404,143 @@ impl KVec {
     }
 }
 
+/// lcm of two positive integers.
+fn lcm<I: KInt>(a: &I, b: &I) -> Option<I> {
+    if a == b || b.is_one() {
+        return Some(a.clone());
+    }
+    a.div_exact(&a.gcd(b)).mul(b)
+}
+
+/// The integers vectors are made of: i128 with every step checked (`None` on overflow), or
+/// big integers (never `None`).
+pub trait KInt: Clone + std::fmt::Debug + PartialEq {
+    fn zero() -> Self;
+    fn from_i128(x: i128) -> Self;
+    fn is_zero(&self) -> bool;
+    fn is_one(&self) -> bool;
+    fn add(&self, o: &Self) -> Option<Self>;
+    fn sub(&self, o: &Self) -> Option<Self>;
+    fn mul(&self, o: &Self) -> Option<Self>;
+    /// gcd(|a|, |b|).
+    fn gcd(&self, o: &Self) -> Self;
+    /// a / b where b divides a.
+    fn div_exact(&self, o: &Self) -> Self;
+    /// acc += a·b in the field.
+    fn mul_acc(f: &KField, acc: &mut [Self], a: &[Self], b: &[Self]) -> Option<()>;
+    /// Writes the numerators of `c` (in the field) into `out`; returns the denominator.
+    fn elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self>;
+    /// The number nums/den of the field.
+    fn cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo;
+}
+
+impl KInt for i128 {
+    fn zero() -> Self {
+        0
+    }
+    fn from_i128(x: i128) -> Self {
+        x
+    }
+    #[inline]
+    fn is_zero(&self) -> bool {
+        *self == 0
+    }
+    fn is_one(&self) -> bool {
+        *self == 1
+    }
+    fn add(&self, o: &Self) -> Option<Self> {
+        self.checked_add(*o)
+    }
+    fn sub(&self, o: &Self) -> Option<Self> {
+        self.checked_sub(*o)
+    }
+    fn mul(&self, o: &Self) -> Option<Self> {
+        self.checked_mul(*o)
+    }
+    fn gcd(&self, o: &Self) -> Self {
+        gcd_u128(self.unsigned_abs(), o.unsigned_abs()) as i128
+    }
+    fn div_exact(&self, o: &Self) -> Self {
+        self / o
+    }
+    #[inline]
+    fn mul_acc(f: &KField, acc: &mut [Self], a: &[Self], b: &[Self]) -> Option<()> {
+        f.mul_acc_i128(acc, a, b)
+    }
+    fn elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self> {
+        f.elem_into(c, out)
+    }
+    fn cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo {
+        f.cyclo(nums, *den)
+    }
+}
+
+impl KInt for BigInt {
+    fn zero() -> Self {
+        Zero::zero()
+    }
+    fn from_i128(x: i128) -> Self {
+        BigInt::from(x)
+    }
+    fn is_zero(&self) -> bool {
+        Zero::is_zero(self)
+    }
+    fn is_one(&self) -> bool {
+        One::is_one(self)
+    }
+    fn add(&self, o: &Self) -> Option<Self> {
+        Some(self + o)
+    }
+    fn sub(&self, o: &Self) -> Option<Self> {
+        Some(self - o)
+    }
+    fn mul(&self, o: &Self) -> Option<Self> {
+        Some(self * o)
+    }
+    fn gcd(&self, o: &Self) -> Self {
+        num_integer::Integer::gcd(self, o)
+    }
+    fn div_exact(&self, o: &Self) -> Self {
+        self / o
+    }
+    fn mul_acc(f: &KField, acc: &mut [Self], a: &[Self], b: &[Self]) -> Option<()> {
+        f.mul_acc_big(acc, a, b);
+        Some(())
+    }
+    fn elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self> {
+        if c.field_order() > 1 && f.n % c.field_order() != 0 {
+            return None;
+        }
+        let coeffs = c.lift(f.n.max(1));
+        let mut den = BigInt::from(1);
+        for q in &coeffs {
+            den = num_integer::Integer::lcm(&den, q.denom());
+        }
+        for (x, q) in out.iter_mut().zip(&coeffs) {
+            *x = q.numer() * (&den / q.denom());
+        }
+        Some(den)
+    }
+    fn cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo {
+        let dense = nums
+            .iter()
+            .map(|x| BigRational::new(x.clone(), den.clone()))
+            .collect();
+        Cyclo::from_dense(dense, f.n)
+    }
+}
+
 /// A family of exact numbers held over one common denominator: irrep matrices, operation
 /// images of a basis. `num` holds φ numerators per number in the caller's order.
 #[derive(Clone, Debug)]
-pub struct KTable {
-    pub num: Vec<i128>,
-    pub den: i128,
+pub struct KTable<I = i128> {
+    pub num: Vec<I>,
+    pub den: I,
 }
 
-impl KTable {
+impl<I: KInt> KTable<I> {
     /// From numbers in the field, in order.
-    pub fn from_cyclos<'a>(f: &KField, v: impl Iterator<Item = &'a Cyclo>) -> Option<KTable> {
+    pub fn from_cyclos<'a>(f: &KField, v: impl Iterator<Item = &'a Cyclo>) -> Option<KTable<I>> {
         let v = KVec::from_iter(f, v)?;
         Some(KTable {
             num: v.num,
@@ -393,7 +549,7 @@ impl KTable {
     }
     /// Number `i` (φ numerators over `den`).
     #[inline]
-    pub fn at(&self, i: usize, phi: usize) -> &[i128] {
+    pub fn at(&self, i: usize, phi: usize) -> &[I] {
         &self.num[i * phi..(i + 1) * phi]
     }
 }

@@ -18,7 +18,7 @@ mod rat;
 mod sqrt;
 
 pub use cyclo::{rational_to_f64, Cyclo, CycloKey};
-pub use kvec::{KField, KTable, KVec};
+pub use kvec::{KField, KInt, KTable, KVec};
 pub use linsolve::{solve as solve_rational, solve_field};
 pub use parse::{parse, parse_with_phi, ParseError};
 pub use print::{decimal, format_rational};

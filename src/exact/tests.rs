@@ -302,13 +302,14 @@ mod fast_path_agrees {
     }
 }
 
-/// The integer-form vectors ([`super::KVec`]) give the same numbers as [`Cyclo`] arithmetic:
+/// The integer-form vectors ([`super::KVec`], on i128 and on big integers) give the same
+/// numbers as [`Cyclo`] arithmetic:
 /// products, dot products, v − s·w and the lift from a subfield, on random vectors of the
 /// fields point groups use (their composita too: Q(ζ₆₀) holds √3 and √5), with parts large
 /// enough that 128-bit arithmetic must sometimes decline (then `None`, never a wrong number).
 mod vectors_agree {
     use super::super::poly::totient;
-    use super::super::{Cyclo, KField, KVec};
+    use super::super::{Cyclo, KField, KInt, KVec};
     use num_bigint::BigInt;
     use num_rational::BigRational;
     use proptest::prelude::*;
@@ -349,30 +350,32 @@ mod vectors_agree {
         })
     }
 
-    /// Same numbers as Cyclo arithmetic; `small` parts must never be declined.
-    fn agree(
+    /// Same numbers as Cyclo arithmetic on integers `I`; with `never_declines` (small parts
+    /// on i128, or big integers) every step must succeed.
+    fn agree<I: KInt>(
         n: u32,
         a: &[Cyclo],
         b: &[Cyclo],
         s: &Cyclo,
-        small: bool,
+        never_declines: bool,
     ) -> Result<(), TestCaseError> {
         let f = KField::get(n);
         let b = &b[..a.len()];
-        let (Some(ka), Some(kb)) = (KVec::from_cyclos(&f, a), KVec::from_cyclos(&f, b)) else {
-            prop_assert!(!small, "small numbers declined");
+        let (Some(ka), Some(kb)) = (KVec::<I>::from_cyclos(&f, a), KVec::<I>::from_cyclos(&f, b))
+        else {
+            prop_assert!(!never_declines, "declined");
             return Ok(()); // declined: parts beyond 128 bits
         };
         prop_assert!(ka.to_cyclos(&f) == a);
         let d = ka.dot(&kb, &f);
-        prop_assert!(d.is_some() || !small, "small dot declined");
+        prop_assert!(d.is_some() || !never_declines, "dot declined");
         if let Some(d) = d {
             let exact: Cyclo = a.iter().zip(b).map(|(x, y)| x * y).sum();
             prop_assert!(d == exact);
         }
         let mut kc = ka.clone();
         let done = kc.sub_scaled(s, &kb, &f);
-        prop_assert!(done.is_some() || !small, "small update declined");
+        prop_assert!(done.is_some() || !never_declines, "update declined");
         if done.is_some() {
             let exact: Vec<Cyclo> = a.iter().zip(b).map(|(x, y)| x - &(s * y)).collect();
             prop_assert!(kc.to_cyclos(&f) == exact);
@@ -384,12 +387,14 @@ mod vectors_agree {
         #![proptest_config(ProptestConfig::with_cases(300))]
         #[test]
         fn small_numbers((n, a, b, s) in vectors(false)) {
-            agree(n, &a, &b, &s, true)?;
+            agree::<i128>(n, &a, &b, &s, true)?;
+            agree::<BigInt>(n, &a, &b, &s, true)?;
         }
 
         #[test]
         fn with_64_bit_parts((n, a, b, s) in vectors(true)) {
-            agree(n, &a, &b, &s, false)?;
+            agree::<i128>(n, &a, &b, &s, false)?;
+            agree::<BigInt>(n, &a, &b, &s, true)?;
         }
     }
 }

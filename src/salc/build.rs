@@ -11,8 +11,9 @@ use super::fast::{common_field, FastBasis, FastIrrep};
 use super::irreps::{real_irreps, IrrepError, Matrix, RealIrrep};
 use super::project::{inverses, partner_one_images, transfer};
 use crate::basis::{Basis, Member};
-use crate::exact::{solve_field, Cyclo};
+use crate::exact::{solve_field, Cyclo, KInt, KTable, KVec};
 use crate::group::PointGroup;
+use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::One;
 use std::collections::HashMap;
@@ -170,8 +171,12 @@ pub fn salcs_with_seeds(
 /// there so tests can compare the two.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Arithmetic {
-    /// Machine integers over one field per irrep, big rationals only where those overflow.
+    /// Machine integers over one field per irrep; where those overflow, big integers over
+    /// the same field; Cyclo numbers only where neither applies.
     Fastest,
+    /// Big integers over one field with one denominator per vector (Cyclo numbers only
+    /// where that does not apply).
+    BigIntegers,
     /// [`Cyclo`] numbers throughout.
     General,
 }
@@ -191,7 +196,7 @@ pub fn salcs_on(
     let clock = Ceiling::new();
     // the integer-form engine, per irrep over the one field holding the basis images, the
     // irrep's matrices and the seeds (Q(ζ₅) for most Ih irreps, Q(ζ₆₀) where √3 enters too)
-    let base_field = (arithmetic == Arithmetic::Fastest)
+    let base_field = (arithmetic != Arithmetic::General)
         .then_some(())
         .and_then(|()| {
             common_field(
@@ -204,6 +209,7 @@ pub fn salcs_on(
             )
         });
     let mut fast_bases: HashMap<u32, Option<FastBasis>> = HashMap::new();
+    let mut big_bases: HashMap<u32, Option<FastBasis<BigInt>>> = HashMap::new();
     let mut arith = Vec::new();
     for (x, ir) in irreps.iter().enumerate() {
         let n = mult[x] as usize;
@@ -221,18 +227,27 @@ pub fn salcs_on(
                 .or_insert_with(|| FastBasis::new(b, n))
                 .as_ref()
         });
-        let quick = match fast_basis {
+        let mut quick = match fast_basis.filter(|_| arithmetic == Arithmetic::Fastest) {
             Some(fb) => fast_tuples(b, fb, ir, &recipe, &inv, &reps, seeds, x, n, &clock)?,
             None => None,
         };
-        arith.push((
-            x,
-            if quick.is_some() {
-                Arithmetic::Fastest
-            } else {
-                Arithmetic::General
-            },
-        ));
+        let mut ran = Arithmetic::Fastest;
+        if quick.is_none() {
+            // 128 bits overflowed (or no field): the same steps on big integers over the field
+            if let Some(n_field) = field {
+                let big = big_bases
+                    .entry(n_field)
+                    .or_insert_with(|| FastBasis::<BigInt>::new(b, n_field));
+                if let Some(fb) = big.as_ref() {
+                    quick = fast_tuples(b, fb, ir, &recipe, &inv, &reps, seeds, x, n, &clock)?;
+                    ran = Arithmetic::BigIntegers;
+                }
+            }
+        }
+        if quick.is_none() {
+            ran = Arithmetic::General;
+        }
+        arith.push((x, ran));
         let tuples = match quick {
             Some(t) => t,
             None => {
@@ -378,9 +393,9 @@ type Tuple = Vec<Vec<Cyclo>>;
 /// and [`PartnerRecipe::partners`], so the same vectors up to positive rational factors (which
 /// `tidy_tuple` removes). `Ok(None)` when a number outgrew 128 bits.
 #[allow(clippy::too_many_arguments)]
-fn fast_tuples(
+fn fast_tuples<I: KInt>(
     b: &Basis,
-    fb: &FastBasis,
+    fb: &FastBasis<I>,
     ir: &RealIrrep,
     recipe: &PartnerRecipe,
     inv: &[usize],
@@ -390,18 +405,17 @@ fn fast_tuples(
     n: usize,
     clock: &Ceiling,
 ) -> Result<Option<Vec<(Tuple, Role)>>, SalcError> {
-    use crate::exact::{KTable, KVec};
     let f = &fb.f;
     let Some(fi) = FastIrrep::new(fb, ir) else {
         return Ok(None);
     };
-    let Some(minv) = KTable::from_cyclos(f, recipe.minv.iter().flatten()) else {
+    let Some(minv) = KTable::<I>::from_cyclos(f, recipe.minv.iter().flatten()) else {
         return Ok(None);
     };
     let complex_type = ir.pair.is_some();
-    let mut found: Vec<(KVec, Role)> = Vec::new();
-    let mut ortho: Vec<(KVec, Cyclo)> = Vec::new();
-    let inv_len2 = |v: &KVec| -> Option<Cyclo> {
+    let mut found: Vec<(KVec<I>, Role)> = Vec::new();
+    let mut ortho: Vec<(KVec<I>, Cyclo)> = Vec::new();
+    let inv_len2 = |v: &KVec<I>| -> Option<Cyclo> {
         Some(
             v.dot(v, f)?
                 .inv()
@@ -409,10 +423,10 @@ fn fast_tuples(
         )
     };
     // Some(()) = done (kept or rejected); None = overflow
-    let offer = |mut v: KVec,
+    let offer = |mut v: KVec<I>,
                  role: Role,
-                 found: &mut Vec<(KVec, Role)>,
-                 ortho: &mut Vec<(KVec, Cyclo)>|
+                 found: &mut Vec<(KVec<I>, Role)>,
+                 ortho: &mut Vec<(KVec<I>, Cyclo)>|
      -> Option<()> {
         for (c, nc) in ortho.iter() {
             let d = v.dot(c, f)?;

@@ -7,7 +7,7 @@
 
 use super::irreps::RealIrrep;
 use crate::basis::Basis;
-use crate::exact::{Cyclo, CycloKey, KField, KTable, KVec};
+use crate::exact::{Cyclo, CycloKey, KField, KInt, KTable, KVec};
 use std::collections::HashMap;
 use std::sync::Arc;
 
@@ -15,9 +15,9 @@ use std::sync::Arc;
 const MAX_PHI: usize = 24;
 
 /// A basis's operation images over one field: `cols[op][m]` lists (k, index into `table`).
-pub(super) struct FastBasis {
+pub(super) struct FastBasis<I = i128> {
     pub f: Arc<KField>,
-    table: KTable,
+    table: KTable<I>,
     cols: Vec<Vec<Vec<(usize, usize)>>>,
     dim: usize,
 }
@@ -45,9 +45,9 @@ fn gcd(mut a: u32, mut b: u32) -> u32 {
     a
 }
 
-impl FastBasis {
+impl<I: KInt> FastBasis<I> {
     /// The basis over a field of order n (a multiple of every image entry's field).
-    pub fn new(b: &Basis, n: u32) -> Option<FastBasis> {
+    pub fn new(b: &Basis, n: u32) -> Option<FastBasis<I>> {
         let f = KField::get(n);
         if f.phi() > MAX_PHI {
             return None;
@@ -85,12 +85,12 @@ impl FastBasis {
     }
 
     /// R_op·v.
-    pub fn apply(&self, op: usize, v: &KVec) -> Option<KVec> {
+    pub fn apply(&self, op: usize, v: &KVec<I>) -> Option<KVec<I>> {
         let phi = self.f.phi();
         let mut out = KVec::zero(self.dim, phi);
         for (m, col) in self.cols[op].iter().enumerate() {
             let x = v.entry(m, phi);
-            if x.iter().all(|&a| a == 0) {
+            if x.iter().all(I::is_zero) {
                 continue;
             }
             for &(k, i) in col {
@@ -101,36 +101,41 @@ impl FastBasis {
                 )?;
             }
         }
-        out.den = self.table.den.checked_mul(v.den)?;
+        out.den = self.table.den.mul(&v.den)?;
         out.lowest_terms();
         Some(out)
     }
 }
 
 /// An irrep's matrices over the basis's field: entry (op, i, j) at op·d² + i·d + j.
-pub(super) struct FastIrrep {
-    table: KTable,
+pub(super) struct FastIrrep<I = i128> {
+    table: KTable<I>,
     d: usize,
 }
 
-impl FastIrrep {
-    pub fn new(fb: &FastBasis, ir: &RealIrrep) -> Option<FastIrrep> {
+impl<I: KInt> FastIrrep<I> {
+    pub fn new(fb: &FastBasis<I>, ir: &RealIrrep) -> Option<FastIrrep<I>> {
         let table = KTable::from_cyclos(&fb.f, ir.mats.iter().flatten().flatten())?;
         Some(FastIrrep { table, d: ir.dim })
     }
     #[inline]
-    fn at(&self, op: usize, i: usize, j: usize, phi: usize) -> &[i128] {
+    fn at(&self, op: usize, i: usize, j: usize, phi: usize) -> &[I] {
         self.table.at(op * self.d * self.d + i * self.d + j, phi)
     }
 
     /// P_1k e_m for k = 1 … d (without d/h), as in `project::partner_one_images`.
-    pub fn partner_one_images(&self, fb: &FastBasis, inv: &[usize], m: usize) -> Option<Vec<KVec>> {
+    pub fn partner_one_images(
+        &self,
+        fb: &FastBasis<I>,
+        inv: &[usize],
+        m: usize,
+    ) -> Option<Vec<KVec<I>>> {
         let phi = fb.f.phi();
         let mut out = vec![KVec::zero(fb.dim, phi); self.d];
         for (o, cols) in fb.cols.iter().enumerate() {
             for (k, acc) in out.iter_mut().enumerate() {
                 let f = self.at(inv[o], k, 0, phi);
-                if f.iter().all(|&x| x == 0) {
+                if f.iter().all(I::is_zero) {
                     continue;
                 }
                 for &(t, i) in &cols[m] {
@@ -138,30 +143,30 @@ impl FastIrrep {
                 }
             }
         }
-        let den = self.table.den.checked_mul(fb.table.den)?;
+        let den = self.table.den.mul(&fb.table.den)?;
         for v in &mut out {
-            v.den = den;
+            v.den = den.clone();
             v.lowest_terms();
         }
         Some(out)
     }
 
     /// P_11 v (without d/h), as in `project::transfer(…, 0, 0, v)`.
-    pub fn transfer_11(&self, fb: &FastBasis, inv: &[usize], v: &KVec) -> Option<KVec> {
+    pub fn transfer_11(&self, fb: &FastBasis<I>, inv: &[usize], v: &KVec<I>) -> Option<KVec<I>> {
         let phi = fb.f.phi();
         let mut out = KVec::zero(fb.dim, phi);
-        let mut fx = vec![0i128; phi];
+        let mut fx = vec![I::zero(); phi];
         for (o, cols) in fb.cols.iter().enumerate() {
             let f = self.at(inv[o], 0, 0, phi);
-            if f.iter().all(|&x| x == 0) {
+            if f.iter().all(I::is_zero) {
                 continue;
             }
             for (m, col) in cols.iter().enumerate() {
                 let x = v.entry(m, phi);
-                if x.iter().all(|&a| a == 0) {
+                if x.iter().all(I::is_zero) {
                     continue;
                 }
-                fx.iter_mut().for_each(|a| *a = 0);
+                fx.iter_mut().for_each(|a| *a = I::zero());
                 fb.f.mul_acc(&mut fx, f, x)?;
                 for &(k, i) in col {
                     fb.f.mul_acc(
@@ -172,72 +177,67 @@ impl FastIrrep {
                 }
             }
         }
-        out.den = self
-            .table
-            .den
-            .checked_mul(fb.table.den)?
-            .checked_mul(v.den)?;
+        out.den = self.table.den.mul(&fb.table.den)?.mul(&v.den)?;
         out.lowest_terms();
         Some(out)
     }
 }
 
 /// sᵢ = Σ_k minv[i][k]·R_k·s₁ over the field (see `build::PartnerRecipe`).
-pub(super) fn partners(
-    fb: &FastBasis,
+pub(super) fn partners<I: KInt>(
+    fb: &FastBasis<I>,
     ops: &[usize],
-    minv: &KTable,
-    s1: &KVec,
-) -> Option<Vec<KVec>> {
+    minv: &KTable<I>,
+    s1: &KVec<I>,
+) -> Option<Vec<KVec<I>>> {
     let d = ops.len();
     if d == 1 {
         return Some(vec![s1.clone()]);
     }
     let phi = fb.f.phi();
-    let images: Vec<KVec> = ops
+    let images: Vec<KVec<I>> = ops
         .iter()
         .map(|&o| fb.apply(o, s1))
         .collect::<Option<_>>()?;
     // bring the images to one denominator
-    let mut den = 1i128;
+    let mut den = I::from_i128(1);
     for im in &images {
-        den = lcm(den, im.den)?;
+        den = lcm(&den, &im.den)?;
     }
     let mut out = Vec::with_capacity(d);
     for i in 0..d {
         let mut v = KVec::zero(fb.dim, phi);
         for (k, img) in images.iter().enumerate() {
             let f = minv.at(i * d + k, phi);
-            if f.iter().all(|&x| x == 0) {
+            if f.iter().all(I::is_zero) {
                 continue;
             }
-            let scale = den / img.den;
+            let scale = den.div_exact(&img.den);
             let mut fs = f.to_vec();
-            if scale != 1 {
+            if !scale.is_one() {
                 for x in &mut fs {
-                    *x = x.checked_mul(scale)?;
+                    *x = x.mul(&scale)?;
                 }
             }
             for (acc, x) in v.num.chunks_mut(phi).zip(img.num.chunks(phi)) {
-                if x.iter().all(|&a| a == 0) {
+                if x.iter().all(I::is_zero) {
                     continue;
                 }
                 fb.f.mul_acc(acc, &fs, x)?;
             }
         }
-        v.den = minv.den.checked_mul(den)?;
+        v.den = minv.den.mul(&den)?;
         v.lowest_terms();
         out.push(v);
     }
     Some(out)
 }
 
-fn lcm(a: i128, b: i128) -> Option<i128> {
-    let (mut x, mut y) = (a.unsigned_abs(), b.unsigned_abs());
-    while y != 0 {
-        (x, y) = (y, x % y);
+fn lcm<I: KInt>(a: &I, b: &I) -> Option<I> {
+    if a == b || b.is_one() {
+        return Some(a.clone());
     }
-    (a / x as i128).checked_mul(b)
+    a.div_exact(&a.gcd(b)).mul(b)
 }
 
 /// Σ vᵢ² on machine integers over the vector's own field (`None`: too large, or fields too
@@ -247,6 +247,6 @@ pub(super) fn self_dot(v: &[Cyclo]) -> Option<Cyclo> {
     if f.phi() > MAX_PHI {
         return None;
     }
-    let k = KVec::from_cyclos(&f, v)?;
+    let k = KVec::<i128>::from_cyclos(&f, v)?;
     k.dot(&k, &f)
 }
