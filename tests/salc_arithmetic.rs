@@ -12,7 +12,6 @@ mod support;
 
 use salcdesk::basis::{self, Basis};
 use salcdesk::salc::{self, Arithmetic, SalcSet};
-use salcdesk::{geom, group};
 use support::*;
 
 fn same_salcs(b: &Basis, what: &str) {
@@ -59,26 +58,12 @@ fn compare(fast: &SalcSet, general: &SalcSet, what: &str) {
 
 #[test]
 fn both_arithmetics_give_the_same_salcs_on_every_site_of_every_group() {
-    let mut cases = 0;
-    for name in group::names() {
-        let g = group::load(name).unwrap();
-        if g.is_linear() {
-            continue;
-        }
-        let ops: Vec<_> = g.ops.iter().map(|o| o.float).collect();
-        let types = geom::site_types(&ops).unwrap();
-        for site in geom::site_names(&types) {
-            if site == "origin" {
-                continue;
-            }
-            let s = centre_and_site(&g, &site).unwrap_or_else(|e| panic!("{name} {site}: {e}"));
-            let ligands: Vec<usize> = (1..s.len()).collect();
-            let sigma = basis::sigma(&s, 0, &ligands).unwrap();
-            same_salcs(&sigma, &format!("{name} {site} σ"));
-            same_salcs(&basis::cartesian(&s), &format!("{name} {site} xyz"));
-            cases += 1;
-        }
-    }
+    let cases = for_every_site_case(|name, site, s| {
+        let ligands: Vec<usize> = (1..s.len()).collect();
+        let sigma = basis::sigma(s, 0, &ligands).unwrap();
+        same_salcs(&sigma, &format!("{name} {site} σ"));
+        same_salcs(&basis::cartesian(s), &format!("{name} {site} xyz"));
+    });
     assert!(cases > 100, "only {cases} site cases");
 }
 

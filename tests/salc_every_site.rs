@@ -9,34 +9,20 @@
 mod support;
 
 use salcdesk::basis::{self, Placed, Structure};
-use salcdesk::{geom, group, salc};
+use salcdesk::{group, salc};
 use support::*;
 
 #[test]
 fn sigma_and_cartesian_salcs_on_every_site_of_every_group() {
-    let mut cases = 0;
-    for name in group::names() {
-        let g = group::load(name).unwrap();
-        if g.is_linear() {
-            continue;
-        }
-        let ops: Vec<_> = g.ops.iter().map(|o| o.float).collect();
-        let types = geom::site_types(&ops).unwrap();
-        for site in geom::site_names(&types) {
-            if site == "origin" {
-                continue;
-            }
-            let s = centre_and_site(&g, &site).unwrap_or_else(|e| panic!("{name} {site}: {e}"));
-            let ligands: Vec<usize> = (1..s.len()).collect();
-            let sigma = basis::sigma(&s, 0, &ligands).unwrap();
-            let set = salc::salcs(&sigma).unwrap_or_else(|e| panic!("{name} {site} σ: {e}"));
-            check_laws(&sigma, &set);
-            let cart = basis::cartesian(&s);
-            let set = salc::salcs(&cart).unwrap_or_else(|e| panic!("{name} {site} xyz: {e}"));
-            check_laws(&cart, &set);
-            cases += 1;
-        }
-    }
+    let cases = for_every_site_case(|name, site, s| {
+        let ligands: Vec<usize> = (1..s.len()).collect();
+        let sigma = basis::sigma(s, 0, &ligands).unwrap();
+        let set = salc::salcs(&sigma).unwrap_or_else(|e| panic!("{name} {site} σ: {e}"));
+        check_laws(&sigma, &set);
+        let cart = basis::cartesian(s);
+        let set = salc::salcs(&cart).unwrap_or_else(|e| panic!("{name} {site} xyz: {e}"));
+        check_laws(&cart, &set);
+    });
     // 32 crystallographic and the further finite groups each have at least an axis or a plane
     assert!(cases > 100, "only {cases} site cases");
 }

@@ -226,3 +226,26 @@ pub fn centre_and_site(
     let bonds = (1..atoms.len()).map(|a| (0, a)).collect();
     Structure::new(g.clone(), atoms, bonds, 1e-4).map_err(|e| e.to_string())
 }
+
+/// Calls `f(group, site, structure)` for a centre and one orbit of H on every site type (but
+/// the origin) of every finite group; returns how many cases there were.
+pub fn for_every_site_case(mut f: impl FnMut(&str, &str, &Structure)) -> usize {
+    let mut cases = 0;
+    for name in salcdesk::group::names() {
+        let g = salcdesk::group::load(name).unwrap();
+        if g.is_linear() {
+            continue;
+        }
+        let ops: Vec<_> = g.ops.iter().map(|o| o.float).collect();
+        let types = salcdesk::geom::site_types(&ops).unwrap();
+        for site in salcdesk::geom::site_names(&types) {
+            if site == "origin" {
+                continue;
+            }
+            let s = centre_and_site(&g, &site).unwrap_or_else(|e| panic!("{name} {site}: {e}"));
+            f(name, &site, &s);
+            cases += 1;
+        }
+    }
+    cases
+}

@@ -9,6 +9,7 @@
 
 use super::cyclo::Cyclo;
 use super::poly::{cyclotomic, from_integer_form, totient};
+use super::rat::gcd_u128;
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::{One, Zero};
@@ -244,28 +245,6 @@ impl KField {
     /// The number nums/den of this field.
     pub fn cyclo(&self, nums: &[i128], den: i128) -> Cyclo {
         Cyclo::from_parts(self.n, from_integer_form(nums, den))
-    }
-}
-
-fn gcd_u128(mut a: u128, mut b: u128) -> u128 {
-    if a == 0 {
-        return b;
-    }
-    if b == 0 {
-        return a;
-    }
-    // binary gcd: no 128-bit division
-    let shift = (a | b).trailing_zeros();
-    a >>= a.trailing_zeros();
-    loop {
-        b >>= b.trailing_zeros();
-        if a > b {
-            std::mem::swap(&mut a, &mut b);
-        }
-        b -= a;
-        if b == 0 {
-            return a << shift;
-        }
     }
 }
 

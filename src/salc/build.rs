@@ -217,6 +217,16 @@ pub fn salcs_on(
             continue;
         }
         let recipe = PartnerRecipe::new(ir);
+        let job = Job {
+            b,
+            ir,
+            x,
+            n,
+            inv: &inv,
+            reps: &reps,
+            seeds,
+            clock: &clock,
+        };
         let field = base_field.and_then(|nb| {
             let ni = common_field(ir.mats.iter().flatten().flatten())?;
             common_field([Cyclo::zeta(nb, 1), Cyclo::zeta(ni, 1)].iter())
@@ -228,7 +238,7 @@ pub fn salcs_on(
                 .as_ref()
         });
         let mut quick = match fast_basis.filter(|_| arithmetic == Arithmetic::Fastest) {
-            Some(fb) => fast_tuples(b, fb, ir, &recipe, &inv, &reps, seeds, x, n, &clock)?,
+            Some(fb) => fast_tuples(&job, fb, &recipe)?,
             None => None,
         };
         let mut ran = Arithmetic::Fastest;
@@ -239,7 +249,7 @@ pub fn salcs_on(
                     .entry(n_field)
                     .or_insert_with(|| FastBasis::<BigInt>::new(b, n_field));
                 if let Some(fb) = big.as_ref() {
-                    quick = fast_tuples(b, fb, ir, &recipe, &inv, &reps, seeds, x, n, &clock)?;
+                    quick = fast_tuples(&job, fb, &recipe)?;
                     ran = Arithmetic::BigIntegers;
                 }
             }
@@ -251,7 +261,7 @@ pub fn salcs_on(
         let tuples = match quick {
             Some(t) => t,
             None => {
-                let firsts = partner_ones(b, ir, &inv, &reps, seeds, x, n, &clock)?;
+                let firsts = partner_ones(&job)?;
                 let mut t = Vec::with_capacity(firsts.len());
                 for (s1, role) in firsts {
                     clock.check(&ir.label)?;
@@ -304,18 +314,43 @@ fn dot(a: &[Cyclo], b: &[Cyclo]) -> Cyclo {
     acc
 }
 
-/// Exactly n orthogonal partner-1 vectors, seeds first.
-#[allow(clippy::too_many_arguments)]
-fn partner_ones(
-    b: &Basis,
-    ir: &RealIrrep,
-    inv: &[usize],
-    reps: &[usize],
-    seeds: &[Seed],
+/// What the SALCs of one irrep are computed from.
+struct Job<'a> {
+    b: &'a Basis,
+    ir: &'a RealIrrep,
+    /// Index of each irrep in the group's real irreps.
     x: usize,
+    /// Copies wanted.
     n: usize,
-    clock: &Ceiling,
-) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
+    inv: &'a [usize],
+    /// One representative site per orbit.
+    reps: &'a [usize],
+    seeds: &'a [Seed],
+    clock: &'a Ceiling,
+}
+
+impl Job<'_> {
+    /// Is this seed still wanted, given the roles of the copies found so far? A seed family
+    /// (e.g. Tx, Ty, Tz) holds as many copies of the irrep as it lists it.
+    fn wants(&self, seed: &Seed, found: impl Iterator<Item = Role> + Clone) -> bool {
+        let allowed = seed.irreps.iter().filter(|&&i| i == self.x).count();
+        let have = found.clone().filter(|r| *r == seed.role).count();
+        allowed > 0 && found.count() < self.n && have < allowed
+    }
+}
+
+/// Exactly n orthogonal partner-1 vectors, seeds first.
+fn partner_ones(job: &Job) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
+    let Job {
+        b,
+        ir,
+        x: _,
+        n,
+        inv,
+        reps,
+        seeds: _,
+        clock,
+    } = *job;
     let mut found: Vec<(Vec<Cyclo>, Role)> = Vec::new();
     // Everything new vectors must be orthogonal to. For a complex pair (¹E + ²E taken as one
     // real irrep) the commutant is C, not R: P₁₁ is the identity on the whole isotypic part,
@@ -355,11 +390,8 @@ fn partner_ones(
         ortho.push((v.clone(), inv_len2(&v)));
         found.push((v, role));
     };
-    for seed in seeds.iter().filter(|s| s.irreps.contains(&x)) {
-        // a seed family (e.g. Tx, Ty, Tz) holds as many copies as it lists the irrep
-        let allowed = seed.irreps.iter().filter(|&&i| i == x).count();
-        let have = found.iter().filter(|(_, r)| *r == seed.role).count();
-        if found.len() == n || have >= allowed {
+    for seed in job.seeds {
+        if !job.wants(seed, found.iter().map(|f| f.1)) {
             continue;
         }
         let v = transfer(b, ir, inv, 0, 0, &seed.vector);
@@ -392,19 +424,21 @@ type Tuple = Vec<Vec<Cyclo>>;
 /// Partner tuples of one irrep on the integer-form engine: the same steps as [`partner_ones`]
 /// and [`PartnerRecipe::partners`], so the same vectors up to positive rational factors (which
 /// `tidy_tuple` removes). `Ok(None)` when a number outgrew 128 bits.
-#[allow(clippy::too_many_arguments)]
 fn fast_tuples<I: KInt>(
-    b: &Basis,
+    job: &Job,
     fb: &FastBasis<I>,
-    ir: &RealIrrep,
     recipe: &PartnerRecipe,
-    inv: &[usize],
-    reps: &[usize],
-    seeds: &[Seed],
-    x: usize,
-    n: usize,
-    clock: &Ceiling,
 ) -> Result<Option<Vec<(Tuple, Role)>>, SalcError> {
+    let Job {
+        b,
+        ir,
+        x: _,
+        n,
+        inv,
+        reps,
+        seeds: _,
+        clock,
+    } = *job;
     let f = &fb.f;
     let Some(fi) = FastIrrep::new(fb, ir) else {
         return Ok(None);
@@ -453,10 +487,8 @@ fn fast_tuples<I: KInt>(
         found.push((v, role));
         Some(())
     };
-    for seed in seeds.iter().filter(|s| s.irreps.contains(&x)) {
-        let allowed = seed.irreps.iter().filter(|&&i| i == x).count();
-        let have = found.iter().filter(|(_, r)| *r == seed.role).count();
-        if found.len() == n || have >= allowed {
+    for seed in job.seeds {
+        if !job.wants(seed, found.iter().map(|f| f.1)) {
             continue;
         }
         let Some(v) = KVec::from_cyclos(f, &seed.vector).and_then(|v| fi.transfer_11(fb, inv, &v))
