@@ -15,54 +15,38 @@ pub enum Rat {
     B(Box<BigRational>),
 }
 
-/// Binary (Stein) gcd of two 128-bit integers: no 128-bit division.
-pub(super) fn gcd_u128(mut a: u128, mut b: u128) -> u128 {
-    if a == 0 {
-        return b;
-    }
-    if b == 0 {
-        return a;
-    }
-    let shift = (a | b).trailing_zeros();
-    a >>= a.trailing_zeros();
-    loop {
-        b >>= b.trailing_zeros();
-        if a > b {
-            std::mem::swap(&mut a, &mut b);
-        }
-        b -= a;
-        if b == 0 {
-            return a << shift;
-        }
-    }
-}
-
 /// gcd of two positive 64-bit integers.
 pub(super) fn gcd_i64(a: i64, b: i64) -> i64 {
     gcd_u64(a.unsigned_abs(), b.unsigned_abs()) as i64
 }
 
-/// Binary (Stein) gcd.
-fn gcd_u64(mut a: u64, mut b: u64) -> u64 {
-    if a == 0 {
-        return b;
-    }
-    if b == 0 {
-        return a;
-    }
-    let shift = (a | b).trailing_zeros();
-    a >>= a.trailing_zeros();
-    loop {
-        b >>= b.trailing_zeros();
-        if a > b {
-            std::mem::swap(&mut a, &mut b);
+/// Binary (Stein) gcd: shifts and subtractions, no division.
+macro_rules! binary_gcd {
+    ($name:ident, $t:ty) => {
+        pub(super) fn $name(mut a: $t, mut b: $t) -> $t {
+            if a == 0 {
+                return b;
+            }
+            if b == 0 {
+                return a;
+            }
+            let shift = (a | b).trailing_zeros();
+            a >>= a.trailing_zeros();
+            loop {
+                b >>= b.trailing_zeros();
+                if a > b {
+                    std::mem::swap(&mut a, &mut b);
+                }
+                b -= a;
+                if b == 0 {
+                    return a << shift;
+                }
+            }
         }
-        b -= a;
-        if b == 0 {
-            return a << shift;
-        }
-    }
+    };
 }
+binary_gcd!(gcd_u64, u64);
+binary_gcd!(gcd_u128, u128);
 
 impl Rat {
     pub const ZERO: Rat = Rat::S(0, 1);

@@ -341,16 +341,7 @@ impl Job<'_> {
 
 /// Exactly n orthogonal partner-1 vectors, seeds first.
 fn partner_ones(job: &Job) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
-    let Job {
-        b,
-        ir,
-        x: _,
-        n,
-        inv,
-        reps,
-        seeds: _,
-        clock,
-    } = *job;
+    let (b, ir, n, inv, reps, clock) = (job.b, job.ir, job.n, job.inv, job.reps, job.clock);
     let mut found: Vec<(Vec<Cyclo>, Role)> = Vec::new();
     // Everything new vectors must be orthogonal to. For a complex pair (¹E + ²E taken as one
     // real irrep) the commutant is C, not R: P₁₁ is the identity on the whole isotypic part,
@@ -429,16 +420,7 @@ fn fast_tuples<I: KInt>(
     fb: &FastBasis<I>,
     recipe: &PartnerRecipe,
 ) -> Result<Option<Vec<(Tuple, Role)>>, SalcError> {
-    let Job {
-        b,
-        ir,
-        x: _,
-        n,
-        inv,
-        reps,
-        seeds: _,
-        clock,
-    } = *job;
+    let (b, ir, n, inv, reps, clock) = (job.b, job.ir, job.n, job.inv, job.reps, job.clock);
     let f = &fb.f;
     let Some(fi) = FastIrrep::new(fb, ir) else {
         return Ok(None);
