@@ -229,25 +229,9 @@ impl Cyclo {
             lifted = self.coeffs_in(m)?;
             &lifted
         };
-        let mut den: i64 = 1;
-        for r in c {
-            match r {
-                Rat::S(_, 1) => {}
-                Rat::S(_, d) => {
-                    if den % d != 0 {
-                        let g = super::rat::gcd_i64(den, *d);
-                        den = den.checked_mul(d / g)?;
-                    }
-                }
-                Rat::B(_) => return None,
-            }
-        }
-        for (x, r) in out.iter_mut().zip(c) {
-            if let Rat::S(p, d) = r {
-                *x = (*p as i128).checked_mul((den / d) as i128)?;
-            }
-        }
-        Some(den as i128)
+        let (nums, den) = integer_form(c)?;
+        out[..nums.len()].copy_from_slice(&nums);
+        Some(den)
     }
     /// The element with these coefficients in Q(ζₙ)'s power basis (φ(n) of them).
     pub(super) fn from_parts(n: u32, coeffs: Coeffs) -> Cyclo {

@@ -289,7 +289,7 @@ impl<I: KInt> KVec<I> {
             let at = num.len();
             num.resize(at + phi, I::zero());
             let d = I::elem_into(f, c, &mut num[at..])?;
-            den = lcm(&den, &d)?;
+            den = den.lcm(&d)?;
             dens.push(d);
         }
         for (chunk, d) in num.chunks_mut(phi).zip(&dens) {
@@ -357,7 +357,7 @@ impl<I: KInt> KVec<I> {
         let mut sn = vec![I::zero(); phi];
         let sd = I::elem_into(f, s, &mut sn)?;
         let od = sd.mul(&other.den)?;
-        let den = lcm(&self.den, &od)?;
+        let den = self.den.lcm(&od)?;
         let ks = den.div_exact(&self.den);
         let ko = den.div_exact(&od);
         let mut prod = vec![I::zero(); phi];
@@ -383,14 +383,6 @@ impl<I: KInt> KVec<I> {
     }
 }
 
-/// lcm of two positive integers.
-fn lcm<I: KInt>(a: &I, b: &I) -> Option<I> {
-    if a == b || b.is_one() {
-        return Some(a.clone());
-    }
-    a.div_exact(&a.gcd(b)).mul(b)
-}
-
 /// The integers vectors are made of: i128 with every step checked (`None` on overflow), or
 /// big integers (never `None`).
 pub trait KInt: Clone + std::fmt::Debug + PartialEq {
@@ -405,6 +397,13 @@ pub trait KInt: Clone + std::fmt::Debug + PartialEq {
     fn gcd(&self, o: &Self) -> Self;
     /// a / b where b divides a.
     fn div_exact(&self, o: &Self) -> Self;
+    /// lcm of two positive integers.
+    fn lcm(&self, o: &Self) -> Option<Self> {
+        if self == o || o.is_one() {
+            return Some(self.clone());
+        }
+        self.div_exact(&self.gcd(o)).mul(o)
+    }
     /// acc += a·b in the field.
     fn mul_acc(f: &KField, acc: &mut [Self], a: &[Self], b: &[Self]) -> Option<()>;
     /// Writes the numerators of `c` (in the field) into `out`; returns the denominator.

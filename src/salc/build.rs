@@ -7,7 +7,7 @@
 //! other partners follow from R·s₁ = Σᵢ sᵢ·D(R)ᵢ₁ for d operations with independent columns,
 //! which costs d applications of R instead of a sum over the group.
 
-use super::fast::{common_field, FastBasis, FastIrrep};
+use super::fast::{common_field, field_lcm, FastBasis, FastIrrep};
 use super::irreps::{real_irreps, IrrepError, Matrix, RealIrrep};
 use super::project::{inverses, partner_one_images, transfer};
 use crate::basis::{Basis, Member};
@@ -74,10 +74,10 @@ pub struct SalcSet {
 
 /// Vectors to place first in an irrep's span (translations, rotations), with their role.
 #[derive(Debug, Clone)]
-pub struct Seed {
+pub struct Preset {
     pub vector: Vec<Cyclo>,
     pub role: Role,
-    /// Real irreps (indices) the seed's family has a part in, each listed once per copy.
+    /// Real irreps (indices) the preset's family has a part in, each listed once per copy.
     pub irreps: Vec<usize>,
 }
 
@@ -155,20 +155,20 @@ pub fn real_multiplicities(b: &Basis, irreps: &[RealIrrep]) -> Result<Vec<u64>, 
 
 /// Every SALC of a basis.
 pub fn salcs(b: &Basis) -> Result<SalcSet, SalcError> {
-    salcs_with_seeds(b, &[], None)
+    salcs_with_presets(b, &[], None)
 }
 
-/// SALCs with seeds placed first, optionally for one real irrep only.
-pub fn salcs_with_seeds(
+/// SALCs with presets placed first, optionally for one real irrep only.
+pub fn salcs_with_presets(
     b: &Basis,
-    seeds: &[Seed],
+    presets: &[Preset],
     only: Option<usize>,
 ) -> Result<SalcSet, SalcError> {
-    salcs_on(b, seeds, only, Arithmetic::Fastest)
+    salcs_on(b, presets, only, Arithmetic::Fastest)
 }
 
-/// Which arithmetic the SALC engine runs on. Both give the same exact numbers; `General` is
-/// there so tests can compare the two.
+/// Which arithmetic the SALC engine runs on. All give the same exact numbers; the choice is
+/// there so tests can compare them, and `SalcSet::arithmetic` reports which one ran.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Arithmetic {
     /// Machine integers over one field per irrep; where those overflow, big integers over
@@ -181,10 +181,10 @@ pub enum Arithmetic {
     General,
 }
 
-/// [`salcs_with_seeds`] on a chosen arithmetic.
+/// [`salcs_with_presets`] on a chosen arithmetic.
 pub fn salcs_on(
     b: &Basis,
-    seeds: &[Seed],
+    presets: &[Preset],
     only: Option<usize>,
     arithmetic: Arithmetic,
 ) -> Result<SalcSet, SalcError> {
@@ -195,7 +195,7 @@ pub fn salcs_on(
     let mut out = Vec::new();
     let clock = Ceiling::new();
     // the integer-form engine, per irrep over the one field holding the basis images, the
-    // irrep's matrices and the seeds (Q(ζ₅) for most Ih irreps, Q(ζ₆₀) where √3 enters too)
+    // irrep's matrices and the presets (Q(ζ₅) for most Ih irreps, Q(ζ₆₀) where √3 enters too)
     let base_field = (arithmetic != Arithmetic::General)
         .then_some(())
         .and_then(|()| {
@@ -205,7 +205,7 @@ pub fn salcs_on(
                     .flatten()
                     .flatten()
                     .map(|(_, c)| c)
-                    .chain(seeds.iter().flat_map(|s| s.vector.iter())),
+                    .chain(presets.iter().flat_map(|s| s.vector.iter())),
             )
         });
     let mut fast_bases: HashMap<u32, Option<FastBasis>> = HashMap::new();
@@ -224,13 +224,11 @@ pub fn salcs_on(
             n,
             inv: &inv,
             reps: &reps,
-            seeds,
+            presets,
             clock: &clock,
         };
-        let field = base_field.and_then(|nb| {
-            let ni = common_field(ir.mats.iter().flatten().flatten())?;
-            common_field([Cyclo::zeta(nb, 1), Cyclo::zeta(ni, 1)].iter())
-        });
+        let field = base_field
+            .and_then(|nb| field_lcm(nb, common_field(ir.mats.iter().flatten().flatten())?));
         let fast_basis = field.and_then(|n| {
             fast_bases
                 .entry(n)
@@ -325,21 +323,21 @@ struct Job<'a> {
     inv: &'a [usize],
     /// One representative site per orbit.
     reps: &'a [usize],
-    seeds: &'a [Seed],
+    presets: &'a [Preset],
     clock: &'a Ceiling,
 }
 
 impl Job<'_> {
-    /// Is this seed still wanted, given the roles of the copies found so far? A seed family
+    /// Is this preset still wanted, given the roles of the copies found so far? A preset family
     /// (e.g. Tx, Ty, Tz) holds as many copies of the irrep as it lists it.
-    fn wants(&self, seed: &Seed, found: impl Iterator<Item = Role> + Clone) -> bool {
-        let allowed = seed.irreps.iter().filter(|&&i| i == self.x).count();
-        let have = found.clone().filter(|r| *r == seed.role).count();
+    fn wants(&self, preset: &Preset, found: impl Iterator<Item = Role> + Clone) -> bool {
+        let allowed = preset.irreps.iter().filter(|&&i| i == self.x).count();
+        let have = found.clone().filter(|r| *r == preset.role).count();
         allowed > 0 && found.count() < self.n && have < allowed
     }
 }
 
-/// Exactly n orthogonal partner-1 vectors, seeds first.
+/// Exactly n orthogonal partner-1 vectors, presets first.
 fn partner_ones(job: &Job) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
     let (b, ir, n, inv, reps, clock) = (job.b, job.ir, job.n, job.inv, job.reps, job.clock);
     let mut found: Vec<(Vec<Cyclo>, Role)> = Vec::new();
@@ -381,12 +379,12 @@ fn partner_ones(job: &Job) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
         ortho.push((v.clone(), inv_len2(&v)));
         found.push((v, role));
     };
-    for seed in job.seeds {
-        if !job.wants(seed, found.iter().map(|f| f.1)) {
+    for preset in job.presets {
+        if !job.wants(preset, found.iter().map(|f| f.1)) {
             continue;
         }
-        let v = transfer(b, ir, inv, 0, 0, &seed.vector);
-        offer(v, seed.role, &mut found);
+        let v = transfer(b, ir, inv, 0, 0, &preset.vector);
+        offer(v, preset.role, &mut found);
     }
     'outer: for &site in reps {
         for m in b.members_of(site) {
@@ -414,7 +412,7 @@ type Tuple = Vec<Vec<Cyclo>>;
 
 /// Partner tuples of one irrep on the integer-form engine: the same steps as [`partner_ones`]
 /// and [`PartnerRecipe::partners`], so the same vectors up to positive rational factors (which
-/// `tidy_tuple` removes). `Ok(None)` when a number outgrew 128 bits.
+/// `tidy_tuple` removes). `Ok(None)` when a number outgrew the integers `I` (i128).
 fn fast_tuples<I: KInt>(
     job: &Job,
     fb: &FastBasis<I>,
@@ -469,15 +467,16 @@ fn fast_tuples<I: KInt>(
         found.push((v, role));
         Some(())
     };
-    for seed in job.seeds {
-        if !job.wants(seed, found.iter().map(|f| f.1)) {
+    for preset in job.presets {
+        if !job.wants(preset, found.iter().map(|f| f.1)) {
             continue;
         }
-        let Some(v) = KVec::from_cyclos(f, &seed.vector).and_then(|v| fi.transfer_11(fb, inv, &v))
+        let Some(v) =
+            KVec::from_cyclos(f, &preset.vector).and_then(|v| fi.transfer_11(fb, inv, &v))
         else {
             return Ok(None);
         };
-        if offer(v, seed.role, &mut found, &mut ortho).is_none() {
+        if offer(v, preset.role, &mut found, &mut ortho).is_none() {
             return Ok(None);
         }
     }

@@ -8,7 +8,7 @@
 //! exact operations — so the rotation vectors eᵢ × r_a are exact (Wilson, Decius & Cross,
 //! *Molecular Vibrations*, §2-6 and ch. 6).
 
-use super::build::{salcs, salcs_with_seeds, Role, SalcError, SalcSet, Seed};
+use super::build::{salcs, salcs_with_presets, Preset, Role, SalcError, SalcSet};
 use super::irreps::real_irreps;
 use crate::basis::{self, Basis, Structure};
 use crate::exact::{solve_field, Cyclo};
@@ -134,13 +134,13 @@ pub fn symmetry_coordinates(s: &Structure) -> Result<SalcSet, SalcError> {
     let rot_irreps = irreps_of(&basis::rotations(s), &irreps)?;
     let pos = exact_positions(s)?;
     let n3 = 3 * s.len();
-    let mut seeds = Vec::new();
+    let mut presets = Vec::new();
     for i in 0..3 {
         let mut v = vec![Cyclo::zero(); n3];
         for a in 0..s.len() {
             v[3 * a + i] = Cyclo::one();
         }
-        seeds.push(Seed {
+        presets.push(Preset {
             vector: v,
             role: Role::Translation,
             irreps: trans_irreps.clone(),
@@ -154,13 +154,13 @@ pub fn symmetry_coordinates(s: &Structure) -> Result<SalcSet, SalcError> {
             v[3 * a + k] = p[j].clone();
             v[3 * a + j] = -p[k].clone();
         }
-        seeds.push(Seed {
+        presets.push(Preset {
             vector: v,
             role: Role::Rotation,
             irreps: rot_irreps.clone(),
         });
     }
-    let mut set = salcs_with_seeds(&cart, &seeds, None)?;
+    let mut set = salcs_with_presets(&cart, &presets, None)?;
     set.notes.push(
         "rotations use positions idealized to exact symmetric values (on a grid of 0.01 Å or finer)"
             .into(),

@@ -2,8 +2,8 @@
 //! are put over one field Q(ζₙ) and one denominator each ([`KTable`]), and the vectors the
 //! engine builds are [`KVec`]s. The steps are those of `build` (projection of one site's
 //! members, Gram–Schmidt, partners from d operations), so the results are the same numbers;
-//! any overflow of 128-bit arithmetic returns `None` and `build` redoes the irrep on
-//! [`Cyclo`]s with big rationals.
+//! generic over the integers ([`KInt`]): on i128 any overflow returns `None` and `build` redoes
+//! the irrep on big integers.
 
 use super::irreps::RealIrrep;
 use crate::basis::Basis;
@@ -24,25 +24,20 @@ pub(super) struct FastBasis<I = i128> {
 
 /// The smallest storage field holding every number (lcm of the fields), if small enough.
 pub(super) fn common_field<'a>(nums: impl Iterator<Item = &'a Cyclo>) -> Option<u32> {
-    let mut n: u32 = 1;
-    for c in nums {
-        let m = c.field_order().max(1);
-        if n % m != 0 {
-            let g = gcd(n, m);
-            n = n.checked_mul(m / g)?;
-            if n > 10_000 {
-                return None;
-            }
-        }
-    }
-    Some(n)
+    nums.map(|c| c.field_order()).try_fold(1, field_lcm)
 }
 
-fn gcd(mut a: u32, mut b: u32) -> u32 {
-    while b != 0 {
-        (a, b) = (b, a % b);
+/// The smallest field Q(ζ_l) holding Q(ζ_a) and Q(ζ_b), if small enough to be worth it.
+pub(super) fn field_lcm(a: u32, b: u32) -> Option<u32> {
+    let (a, b) = (a.max(1), b.max(1));
+    if a % b == 0 {
+        return Some(a);
     }
-    a
+    let (mut x, mut y) = (a, b);
+    while y != 0 {
+        (x, y) = (y, x % y);
+    }
+    Some(a.checked_mul(b / x)?).filter(|&l| l <= 10_000)
 }
 
 impl<I: KInt> FastBasis<I> {
@@ -202,7 +197,7 @@ pub(super) fn partners<I: KInt>(
     // bring the images to one denominator
     let mut den = I::from_i128(1);
     for im in &images {
-        den = lcm(&den, &im.den)?;
+        den = den.lcm(&im.den)?;
     }
     let mut out = Vec::with_capacity(d);
     for i in 0..d {
@@ -231,13 +226,6 @@ pub(super) fn partners<I: KInt>(
         out.push(v);
     }
     Some(out)
-}
-
-fn lcm<I: KInt>(a: &I, b: &I) -> Option<I> {
-    if a == b || b.is_one() {
-        return Some(a.clone());
-    }
-    a.div_exact(&a.gcd(b)).mul(b)
 }
 
 /// Σ vᵢ² on machine integers over the vector's own field (`None`: too large, or fields too

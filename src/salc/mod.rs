@@ -15,8 +15,8 @@ mod project;
 mod render;
 
 pub use build::{
-    count_ceiling_from, display_form, real_multiplicities, salcs, salcs_on, salcs_with_seeds,
-    Arithmetic, Role, Salc, SalcError, SalcSet, Seed, EXACT_CEILING,
+    count_ceiling_from, display_form, real_multiplicities, salcs, salcs_on, salcs_with_presets,
+    Arithmetic, Preset, Role, Salc, SalcError, SalcSet, EXACT_CEILING,
 };
 pub use coords::{
     central_matches, exact_positions, internal_coordinates, nearby_fraction, symmetry_coordinates,
