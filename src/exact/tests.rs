@@ -307,6 +307,8 @@ mod fast_path_agrees {
 /// products, dot products, v − s·w and the lift from a subfield, on random vectors of the
 /// fields point groups use (their composita too: Q(ζ₆₀) holds √3 and √5), with parts large
 /// enough that 128-bit arithmetic must sometimes decline (then `None`, never a wrong number).
+// Reference: the crate's Cyclo arithmetic (the general path above), compared exactly —
+// differential testing of two exact implementations, common practice.
 mod vectors_agree {
     use super::super::poly::totient;
     use super::super::{Cyclo, KField, KInt, KVec};
