@@ -1,77 +1,118 @@
-//! Vectors and matrices over one cyclotomic field Q(ζₙ) held as machine integers: every entry
-//! is φ(n) integer numerators in the power basis, and a whole vector (or matrix) shares one
-//! positive denominator. A product of two entries is an integer convolution reduced modulo Φₙ
-//! with precomputed rows for ζ^φ … ζ^(2φ−2); sums need no gcd at all, and a vector is brought
-//! to lowest terms once per operation, not once per number.
+//! Vectors and matrices over one number field held as machine integers: every entry is k
+//! integer numerators in the field's power basis, and a whole vector (or matrix) shares one
+//! positive denominator. The field is Q(ζₙ) (basis powers of ζₙ) or one of its real subfields
+//! (basis powers of a primitive element η, see [`super::subfield`]). A product of two entries is
+//! an integer convolution reduced with precomputed rows for x^k … x^(2k−2) modulo the minimal
+//! polynomial; sums need no gcd at all, and a vector is brought to lowest terms once per
+//! operation, not once per number.
 //!
 //! Every step is checked 128-bit arithmetic and returns `None` on overflow: the caller then does
-//! the same work on [`Cyclo`] (big rationals), so results never depend on which path ran.
+//! the same work on big integers, so results never depend on which path ran.
 
 use super::cyclo::Cyclo;
 use super::poly::{cyclotomic, from_integer_form, totient};
 use super::rat::gcd_u128;
+use super::subfield::{solve_fraction_free, Embedding, FieldSpec};
 use num_bigint::BigInt;
 use num_rational::BigRational;
-use num_traits::{One, Zero};
+use num_traits::{One, Signed, Zero};
 use std::collections::HashMap;
 use std::sync::{Arc, Mutex, OnceLock};
 
-/// The field Q(ζₙ) with what products need: φ(n) and ζ^(φ+j) mod Φₙ for j = 0 … φ−2.
+/// A number field with what products need: its degree k and x^(k+j) modulo its minimal
+/// polynomial for j = 0 … k−2.
 #[derive(Debug)]
 pub struct KField {
+    spec: FieldSpec,
+    /// Order of the cyclotomic field the numbers are stored in.
     n: u32,
+    /// Degree of this field (φ(n) for Q(ζₙ)).
     phi: usize,
-    /// `high[j]` = ζ^(φ+j) reduced modulo Φₙ (φ integer coefficients).
+    /// `high[j]` = x^(k+j) reduced modulo the minimal polynomial (k integer coefficients).
     high: Vec<Vec<i128>>,
-    /// Power bases of subfields Q(ζₘ) expressed in this one, by m.
+    /// For a proper subfield: Q(ζₙ) and how this field sits in it.
+    emb: Option<(Arc<KField>, Embedding)>,
+    /// Power bases of subfields Q(ζₘ) expressed in this one (Q(ζₙ) only), by m.
     lifts: Mutex<HashMap<u32, Arc<Vec<Vec<i128>>>>>,
 }
 
 impl KField {
     /// Q(ζₙ), built once per n. n ≡ 2 (mod 4) is not a storage field of [`Cyclo`]; use n/2.
     pub fn get(n: u32) -> Arc<KField> {
-        static C: OnceLock<Mutex<HashMap<u32, Arc<KField>>>> = OnceLock::new();
+        Self::of(&FieldSpec::Cyclotomic(n.max(1))).expect("a cyclotomic field can be built")
+    }
+
+    /// The field named by `spec`, built once per process; `None` when a subfield's numbers do
+    /// not fit machine integers.
+    pub fn of(spec: &FieldSpec) -> Option<Arc<KField>> {
+        type Cache = Mutex<HashMap<FieldSpec, Option<Arc<KField>>>>;
+        static C: OnceLock<Cache> = OnceLock::new();
         let c = C.get_or_init(|| Mutex::new(HashMap::new()));
-        if let Some(f) = c.lock().expect("field cache").get(&n) {
+        if let Some(f) = c.lock().expect("field cache").get(spec) {
             return f.clone();
         }
-        let f = Arc::new(KField::build(n));
-        c.lock().expect("field cache").insert(n, f.clone());
+        let f = match spec {
+            FieldSpec::Cyclotomic(n) => {
+                let poly: Vec<i128> = cyclotomic(*n).iter().map(|&p| p as i128).collect();
+                Self::build(spec.clone(), &poly, None)
+            }
+            _ => {
+                let home = Self::get(spec.home());
+                Embedding::new(spec).and_then(|e| {
+                    let poly = e.poly.clone();
+                    Self::build(spec.clone(), &poly, Some((home, e)))
+                })
+            }
+        }
+        .map(Arc::new);
+        c.lock()
+            .expect("field cache")
+            .insert(spec.clone(), f.clone());
         f
     }
 
-    fn build(n: u32) -> KField {
-        let n = n.max(1);
-        let phi = totient(n);
-        let poly = cyclotomic(n); // monic, degree φ, lowest coefficient first
+    /// The field with monic minimal polynomial `poly` (lowest coefficient first).
+    fn build(
+        spec: FieldSpec,
+        poly: &[i128],
+        emb: Option<(Arc<KField>, Embedding)>,
+    ) -> Option<KField> {
+        let phi = poly.len() - 1;
         let mut high = Vec::new();
         if phi > 1 {
-            // ζ^φ = −Σ_{j<φ} p_j ζ^j
-            let mut cur: Vec<i128> = poly[..phi].iter().map(|&p| -(p as i128)).collect();
+            // x^k = −Σ_{j<k} p_j x^j
+            let mut cur: Vec<i128> = poly[..phi].iter().map(|&p| -p).collect();
             high.push(cur.clone());
             for _ in 1..phi.saturating_sub(1) {
-                // multiply by ζ: shift up, fold the top coefficient back
+                // multiply by x: shift up, fold the top coefficient back
                 let top = cur[phi - 1];
                 let mut next = vec![0i128; phi];
                 next[1..phi].copy_from_slice(&cur[..(phi - 1)]);
                 for j in 0..phi {
-                    next[j] -= top * poly[j] as i128;
+                    next[j] = next[j].checked_sub(top.checked_mul(poly[j])?)?;
                 }
                 cur = next;
                 high.push(cur.clone());
             }
         }
-        KField {
-            n,
+        Some(KField {
+            n: spec.home().max(1),
+            spec,
             phi,
             high,
+            emb,
             lifts: Mutex::new(HashMap::new()),
-        }
+        })
+    }
+
+    pub fn spec(&self) -> &FieldSpec {
+        &self.spec
     }
 
     pub fn n(&self) -> u32 {
         self.n
     }
+    /// Degree of the field (numerators per number).
     pub fn phi(&self) -> usize {
         self.phi
     }
@@ -185,15 +226,95 @@ impl KField {
         Some(())
     }
 
-    /// The φ numerators and the denominator of `c` in this field (c must lie in it).
+    /// The numerators and the denominator of `c` in this field (`None`: not in the field, or
+    /// too large for machine integers).
     pub fn elem(&self, c: &Cyclo) -> Option<(Vec<i128>, i128)> {
         let mut nums = vec![0i128; self.phi];
-        let den = self.elem_into(c, &mut nums)?;
+        let den = self.elem_of(c, &mut nums)?;
         Some((nums, den))
     }
 
-    /// Writes the φ numerators of `c` into `out`; returns the denominator.
-    pub fn elem_into(&self, c: &Cyclo, out: &mut [i128]) -> Option<i128> {
+    /// Writes the numerators of `c` into `out` (k of them); returns the denominator. `None`
+    /// when `c` is not in the field or (on i128) a number outgrows 128 bits.
+    pub fn elem_of<I: KInt>(&self, c: &Cyclo, out: &mut [I]) -> Option<I> {
+        match &self.emb {
+            None => I::cyc_elem_into(self, c, out),
+            Some((home, e)) => {
+                let mut x = vec![I::zero(); home.phi];
+                let den = I::cyc_elem_into(home, c, &mut x)?;
+                e.coords(&x, &den, out)
+            }
+        }
+    }
+
+    /// The number nums/den of this field.
+    pub fn cyclo_of<I: KInt>(&self, nums: &[I], den: &I) -> Cyclo {
+        match &self.emb {
+            None => I::cyc_cyclo(self, nums, den),
+            Some((home, e)) => {
+                let mut x = vec![I::zero(); home.phi];
+                if e.expand(nums, &mut x).is_some() {
+                    return I::cyc_cyclo(home, &x, den);
+                }
+                // 128 bits overflowed on the way back: the same on big integers
+                let big: Vec<BigInt> = nums.iter().map(I::to_big).collect();
+                let mut x = vec![<BigInt as Zero>::zero(); home.phi];
+                e.expand(&big, &mut x)
+                    .expect("big integers do not overflow");
+                BigInt::cyc_cyclo(home, &x, &den.to_big())
+            }
+        }
+    }
+
+    /// a·b for numbers a = an/ad and b = bn/bd of the field, in lowest terms.
+    pub fn mul<I: KInt>(&self, an: &[I], ad: &I, bn: &[I], bd: &I) -> Option<(Vec<I>, I)> {
+        let mut out = vec![I::zero(); self.phi];
+        self.mul_acc(&mut out, an, bn)?;
+        Some(lowest_scalar(out, ad.mul(bd)?))
+    }
+
+    /// 1/a for a nonzero number a = an/ad of the field: a·x = 1 solved as a linear system (the
+    /// columns of a's multiplication matrix are a·x^j), fraction-free, after dividing out the
+    /// numerators' common factor g: (an/ad)⁻¹ = (ad/g)·(an/g)⁻¹. Where that outgrows 128 bits,
+    /// the inverse is taken on exact numbers and brought back.
+    pub fn inverse<I: KInt>(&self, an: &[I], ad: &I) -> Option<(Vec<I>, I)> {
+        let k = self.phi;
+        let g = an
+            .iter()
+            .filter(|x| !x.is_zero())
+            .fold(I::zero(), |g, x| g.gcd(x));
+        let g = if g.is_zero() { I::from_i128(1) } else { g };
+        let prim: Vec<I> = an.iter().map(|x| x.div_exact(&g)).collect();
+        let solved = (|| {
+            let mut m = vec![vec![I::zero(); k]; k];
+            let mut unit = vec![I::zero(); k];
+            for j in 0..k {
+                unit.iter_mut().for_each(|u| *u = I::zero());
+                unit[j] = I::from_i128(1);
+                let mut col = vec![I::zero(); k];
+                self.mul_acc(&mut col, &prim, &unit)?;
+                for (i, c) in col.into_iter().enumerate() {
+                    m[i][j] = c;
+                }
+            }
+            let mut e0 = vec![I::zero(); k];
+            e0[0] = I::from_i128(1);
+            let (xn, xd) = solve_fraction_free(m, &e0)?;
+            let xn = xn.iter().map(|x| x.mul(ad)).collect::<Option<Vec<I>>>()?;
+            Some(lowest_scalar(xn, xd.mul(&g)?))
+        })();
+        if solved.is_some() {
+            return solved;
+        }
+        let inv = self.cyclo_of(an, ad).inv()?;
+        let mut out = vec![I::zero(); k];
+        let den = self.elem_of(&inv, &mut out)?;
+        Some(lowest_scalar(out, den))
+    }
+
+    /// Writes the φ numerators of `c` (stored in a subfield Q(ζₘ) of this Q(ζₙ)) into `out`;
+    /// returns the denominator.
+    fn cyc_elem_into(&self, c: &Cyclo, out: &mut [i128]) -> Option<i128> {
         let m = c.field_order();
         if m <= 1 || m == self.n {
             return c.int_form_into(self.n, out);
@@ -242,10 +363,30 @@ impl KField {
         v
     }
 
-    /// The number nums/den of this field.
-    pub fn cyclo(&self, nums: &[i128], den: i128) -> Cyclo {
+    /// The number nums/den of this Q(ζₙ).
+    fn cyc_cyclo(&self, nums: &[i128], den: i128) -> Cyclo {
         Cyclo::from_parts(self.n, from_integer_form(nums, den))
     }
+}
+
+/// A field number nums/den with the numerators' and the denominator's gcd divided out.
+fn lowest_scalar<I: KInt>(mut nums: Vec<I>, den: I) -> (Vec<I>, I) {
+    let mut g = den.gcd(&I::zero());
+    for x in &nums {
+        if g.is_one() {
+            return (nums, den);
+        }
+        if !x.is_zero() {
+            g = g.gcd(x);
+        }
+    }
+    if g.is_one() || g.is_zero() {
+        return (nums, den);
+    }
+    for x in &mut nums {
+        *x = x.div_exact(&g);
+    }
+    (nums, den.div_exact(&g))
 }
 
 /// A vector of `len` entries of one field over one positive denominator.
@@ -288,7 +429,7 @@ impl<I: KInt> KVec<I> {
         for c in v {
             let at = num.len();
             num.resize(at + phi, I::zero());
-            let d = I::elem_into(f, c, &mut num[at..])?;
+            let d = f.elem_of(c, &mut num[at..])?;
             den = den.lcm(&d)?;
             dens.push(d);
         }
@@ -313,7 +454,7 @@ impl<I: KInt> KVec<I> {
                 if c.iter().all(I::is_zero) {
                     Cyclo::zero()
                 } else {
-                    I::cyclo(f, c, &self.den)
+                    f.cyclo_of(c, &self.den)
                 }
             })
             .collect()
@@ -340,6 +481,12 @@ impl<I: KInt> KVec<I> {
 
     /// Σ aᵢbᵢ (no conjugation) as an exact number.
     pub fn dot(&self, other: &KVec<I>, f: &KField) -> Option<Cyclo> {
+        let (n, d) = self.dot_in(other, f)?;
+        Some(f.cyclo_of(&n, &d))
+    }
+
+    /// Σ aᵢbᵢ as a number of the field (numerators, denominator; not reduced).
+    pub fn dot_in(&self, other: &KVec<I>, f: &KField) -> Option<(Vec<I>, I)> {
         let phi = f.phi;
         let mut acc = vec![I::zero(); phi];
         for (a, b) in self.num.chunks(phi).zip(other.num.chunks(phi)) {
@@ -348,14 +495,19 @@ impl<I: KInt> KVec<I> {
             }
             f.mul_acc(&mut acc, a, b)?;
         }
-        Some(I::cyclo(f, &acc, &self.den.mul(&other.den)?))
+        Some((acc, self.den.mul(&other.den)?))
     }
 
     /// self − s·other for a field number s.
     pub fn sub_scaled(&mut self, s: &Cyclo, other: &KVec<I>, f: &KField) -> Option<()> {
+        let mut sn = vec![I::zero(); f.phi];
+        let sd = f.elem_of(s, &mut sn)?;
+        self.sub_scaled_in(&sn, &sd, other, f)
+    }
+
+    /// self − s·other for s = sn/sd of the field.
+    pub fn sub_scaled_in(&mut self, sn: &[I], sd: &I, other: &KVec<I>, f: &KField) -> Option<()> {
         let phi = f.phi;
-        let mut sn = vec![I::zero(); phi];
-        let sd = I::elem_into(f, s, &mut sn)?;
         let od = sd.mul(&other.den)?;
         let den = self.den.lcm(&od)?;
         let ks = den.div_exact(&self.den);
@@ -372,7 +524,7 @@ impl<I: KInt> KVec<I> {
                 continue;
             }
             prod.iter_mut().for_each(|x| *x = I::zero());
-            f.mul_acc(&mut prod, &sn, o)?;
+            f.mul_acc(&mut prod, sn, o)?;
             for (x, p) in mine.iter_mut().zip(&prod) {
                 *x = x.mul(&ks)?.sub(&p.mul(&ko)?)?;
             }
@@ -404,12 +556,15 @@ pub trait KInt: Clone + std::fmt::Debug + PartialEq {
         }
         self.div_exact(&self.gcd(o)).mul(o)
     }
+    fn is_negative(&self) -> bool;
+    fn to_big(&self) -> BigInt;
     /// acc += a·b in the field.
     fn mul_acc(f: &KField, acc: &mut [Self], a: &[Self], b: &[Self]) -> Option<()>;
-    /// Writes the numerators of `c` (in the field) into `out`; returns the denominator.
-    fn elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self>;
-    /// The number nums/den of the field.
-    fn cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo;
+    /// Writes the numerators of `c` in the cyclotomic field `f` into `out`; returns the
+    /// denominator.
+    fn cyc_elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self>;
+    /// The number nums/den of the cyclotomic field `f`.
+    fn cyc_cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo;
 }
 
 impl KInt for i128 {
@@ -445,11 +600,17 @@ impl KInt for i128 {
     fn mul_acc(f: &KField, acc: &mut [Self], a: &[Self], b: &[Self]) -> Option<()> {
         f.mul_acc_i128(acc, a, b)
     }
-    fn elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self> {
-        f.elem_into(c, out)
+    fn is_negative(&self) -> bool {
+        *self < 0
     }
-    fn cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo {
-        f.cyclo(nums, *den)
+    fn to_big(&self) -> BigInt {
+        BigInt::from(*self)
+    }
+    fn cyc_elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self> {
+        f.cyc_elem_into(c, out)
+    }
+    fn cyc_cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo {
+        f.cyc_cyclo(nums, *den)
     }
 }
 
@@ -485,7 +646,13 @@ impl KInt for BigInt {
         f.mul_acc_big(acc, a, b);
         Some(())
     }
-    fn elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self> {
+    fn is_negative(&self) -> bool {
+        Signed::is_negative(self)
+    }
+    fn to_big(&self) -> BigInt {
+        self.clone()
+    }
+    fn cyc_elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self> {
         if c.field_order() > 1 && f.n % c.field_order() != 0 {
             return None;
         }
@@ -499,7 +666,7 @@ impl KInt for BigInt {
         }
         Some(den)
     }
-    fn cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo {
+    fn cyc_cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo {
         let dense = nums
             .iter()
             .map(|x| BigRational::new(x.clone(), den.clone()))

@@ -116,3 +116,80 @@ pub fn solve_field(
     }
     Some(sol)
 }
+
+/// Fixed independent vectors prepared for many coordinate solves: k independent rows and the
+/// inverse of the k×k matrix they form, so coordinates cost one k×k product and a check of the
+/// other rows (which also decides membership in the span exactly).
+pub(super) struct Span {
+    cols: Vec<Vec<Rat>>,
+    rows: Vec<usize>,
+    /// `inv[j][r]`: coordinate j = Σᵣ inv[j][r]·x[rows[r]].
+    inv: Vec<Vec<Rat>>,
+}
+
+impl Span {
+    /// `None` when the vectors are dependent.
+    pub fn new(cols: Vec<Vec<Rat>>) -> Option<Span> {
+        let k = cols.len();
+        let len = cols.first().map_or(0, Vec::len);
+        let row = |r: usize| -> Vec<Rat> { cols.iter().map(|c| c[r].clone()).collect() };
+        let mut rows: Vec<usize> = Vec::new();
+        let mut chosen: Vec<Vec<Rat>> = Vec::new();
+        for r in 0..len {
+            if rows.len() == k {
+                break;
+            }
+            let mine = row(r);
+            if mine.iter().all(Rat::is_zero) {
+                continue;
+            }
+            if chosen.is_empty() || solve_rat(&chosen, &mine).is_none() {
+                rows.push(r);
+                chosen.push(mine);
+            }
+        }
+        if rows.len() != k {
+            return None;
+        }
+        // S[r][j] = cols[j][rows[r]]; column c of S⁻¹ solves S·y = e_c
+        let s_cols: Vec<Vec<Rat>> = (0..k)
+            .map(|j| rows.iter().map(|&r| cols[j][r].clone()).collect())
+            .collect();
+        let inv_cols: Vec<Vec<Rat>> = (0..k)
+            .map(|c| {
+                let e: Vec<Rat> = (0..k).map(|i| Rat::int((i == c) as i64)).collect();
+                solve_rat(&s_cols, &e)
+            })
+            .collect::<Option<_>>()?;
+        let inv = (0..k)
+            .map(|j| (0..k).map(|c| inv_cols[c][j].clone()).collect())
+            .collect();
+        Some(Span { cols, rows, inv })
+    }
+
+    /// Coordinates of x in the span, or `None` when x is not in it.
+    pub fn coords(&self, x: &[Rat]) -> Option<Vec<Rat>> {
+        let y: Vec<Rat> = self
+            .inv
+            .iter()
+            .map(|row| {
+                row.iter()
+                    .zip(&self.rows)
+                    .filter(|(a, &r)| !a.is_zero() && !x[r].is_zero())
+                    .fold(Rat::ZERO, |acc, (a, &r)| &acc + &(a * &x[r]))
+            })
+            .collect();
+        for (t, xt) in x.iter().enumerate() {
+            let v = self
+                .cols
+                .iter()
+                .zip(&y)
+                .filter(|(c, yj)| !c[t].is_zero() && !yj.is_zero())
+                .fold(Rat::ZERO, |acc, (c, yj)| &acc + &(&c[t] * yj));
+            if &v != xt {
+                return None;
+            }
+        }
+        Some(y)
+    }
+}

@@ -14,15 +14,19 @@ mod linsolve;
 mod parse;
 mod poly;
 mod print;
+mod quickhash;
 mod rat;
 mod sqrt;
+mod subfield;
 
 pub use cyclo::{rational_to_f64, Cyclo, CycloKey};
 pub use kvec::{KField, KInt, KTable, KVec};
 pub use linsolve::{solve as solve_rational, solve_field};
 pub use parse::{parse, parse_with_phi, ParseError};
 pub use print::{decimal, format_rational};
+pub use quickhash::QuickMap;
 pub use sqrt::{rationalize, sqrt, sqrt_rational, SqrtError};
+pub use subfield::{candidates as field_candidates, FieldSpec};
 
 /// How to write numbers: Unicode (√, π, −, subscripts) or plain ASCII.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]

@@ -6,7 +6,6 @@
 //! Other complex numbers are written re + im·i. Every printed form parses back to the same number.
 
 use super::cyclo::Cyclo;
-use super::linsolve::solve;
 use super::sqrt::sqrt_rational;
 use super::Notation;
 use num_bigint::BigInt;
@@ -21,11 +20,10 @@ pub fn format(x: &Cyclo, nt: Notation) -> String {
     }
     // Finding the nicest form costs a few linear solves; tables and SALC lists print the same
     // few values many times, so irrational results are remembered (bounded).
-    use std::collections::HashMap;
     use std::sync::{Mutex, OnceLock};
     type Key = (super::CycloKey, bool);
-    static MEMO: OnceLock<Mutex<HashMap<Key, String>>> = OnceLock::new();
-    let memo = MEMO.get_or_init(|| Mutex::new(HashMap::new()));
+    static MEMO: OnceLock<Mutex<super::QuickMap<Key, String>>> = OnceLock::new();
+    let memo = MEMO.get_or_init(|| Mutex::new(super::QuickMap::default()));
     let key = (x.key(), nt == Notation::Ascii);
     if let Some(s) = memo.lock().expect("print memo").get(&key) {
         return s.clone();
@@ -166,7 +164,7 @@ fn format_real(x: &Cyclo, nt: Notation) -> String {
     // 1 and √d.
     for &d in &ds {
         let Some(r) = root(d) else { continue };
-        if let Some(c) = coords(x, &[Cyclo::one(), r]) {
+        if let Some(c) = coords(x, &[d], &[Cyclo::one(), r]) {
             return join_terms(&c, &["".into(), sqrt_text(d, nt)], nt);
         }
     }
@@ -179,7 +177,7 @@ fn format_real(x: &Cyclo, nt: Notation) -> String {
             let (Some(r1), Some(r2), Some(r3)) = (root(d1), root(d2), root(d3)) else {
                 continue;
             };
-            if let Some(c) = coords(x, &[Cyclo::one(), r1, r2, r3.clone()]) {
+            if let Some(c) = coords(x, &[d1, d2, d3], &[Cyclo::one(), r1, r2, r3.clone()]) {
                 // √(d₁d₂) = g·√d₃
                 let names = [
                     String::new(),
@@ -199,7 +197,7 @@ fn format_real(x: &Cyclo, nt: Notation) -> String {
         basis.push(Cyclo::cos_turn(j as i64, n_even as i64) * Cyclo::from_int(2));
         names.push(cos_text(j, n_even, nt));
     }
-    if let Some(c) = coords(x, &basis) {
+    if let Some(c) = coords(x, &[0, n_even], &basis) {
         return join_terms(&c, &names, nt);
     }
     // Should not happen for a real cyclotomic number; fall back to the decimal value.
@@ -220,13 +218,34 @@ fn cached_root(d: u32) -> Option<Cyclo> {
     r
 }
 
-/// Rational coordinates of x in the given (independent) basis, if x lies in its span.
-fn coords(x: &Cyclo, basis: &[Cyclo]) -> Option<Vec<BigRational>> {
+/// Rational coordinates of x in the given (independent) basis, if x lies in its span. `tag`
+/// names the basis (the same tag, the same basis): each basis is prepared once per field.
+fn coords(x: &Cyclo, tag: &[u32], basis: &[Cyclo]) -> Option<Vec<BigRational>> {
+    use super::linsolve::Span;
+    use std::collections::HashMap;
+    use std::sync::{Arc, Mutex, OnceLock};
+    type Cache = Mutex<HashMap<(u32, Vec<u32>), Option<Arc<Span>>>>;
+    static C: OnceLock<Cache> = OnceLock::new();
     let m = basis
         .iter()
         .fold(x.field_order(), |m, b| super::poly::lcm(m, b.field_order()));
-    let cols: Vec<Vec<BigRational>> = basis.iter().map(|b| b.lift(m)).collect();
-    solve(&cols, &x.lift(m))
+    let cache = C.get_or_init(|| Mutex::new(HashMap::new()));
+    let key = (m, tag.to_vec());
+    let cached = cache.lock().expect("span cache").get(&key).cloned();
+    let span = match cached {
+        Some(s) => s,
+        None => {
+            let cols = basis
+                .iter()
+                .map(|b| b.coeffs_in(m).map(|c| c.to_vec()))
+                .collect::<Option<Vec<_>>>()?;
+            let s = Span::new(cols).map(Arc::new);
+            cache.lock().expect("span cache").insert(key, s.clone());
+            s
+        }
+    }?;
+    let y = span.coords(&x.coeffs_in(m)?)?;
+    Some(y.iter().map(|r| r.to_big()).collect())
 }
 
 /// Σ cⱼ·termⱼ over a common denominator: `(1+√5)/2`, `−√3/2`, `2cos(2π/7)`.

@@ -400,3 +400,155 @@ mod vectors_agree {
         }
     }
 }
+
+/// The real subfields ([`super::FieldSpec::RealPart`], [`super::FieldSpec::Roots`]) as fields
+/// of their own give the same numbers as [`Cyclo`] arithmetic: round trip, dot products,
+/// v − s·w, products and inverses, on random real numbers of Q(ζₙ + ζₙ⁻¹) (x + x̄ for random x)
+/// and of Q(√d₁, √d₂) (rational combinations of the roots), on i128 and on big integers; and a
+/// number outside the subfield is refused, never misread.
+// Reference: the crate's Cyclo arithmetic, compared exactly (differential testing, common
+// practice); membership facts: ζₙ is not real; 2cos(2π/60) ∉ Q(√3, √5) (it has degree 8 over
+// Q, the degree φ(60)/2 of the real subfield it generates — Washington, *Introduction to
+// Cyclotomic Fields*, Prop. 2.16).
+mod subfields_agree {
+    use super::super::poly::totient;
+    use super::super::subfield::{candidates, FieldSpec};
+    use super::super::{sqrt_rational, Cyclo, KField, KInt, KVec};
+    use num_bigint::BigInt;
+    use num_rational::BigRational;
+    use proptest::prelude::*;
+
+    const HOMES: [u32; 10] = [5, 7, 8, 9, 12, 16, 20, 24, 28, 60];
+
+    fn rational() -> impl Strategy<Value = Cyclo> {
+        prop_oneof![
+            3 => (-30i64..=30, 1i64..=9).prop_map(|(p, q)| Cyclo::frac(p, q)),
+            1 => Just(Cyclo::zero()),
+        ]
+    }
+
+    /// A random real number of the subfield `spec`.
+    fn number(spec: FieldSpec) -> BoxedStrategy<Cyclo> {
+        match spec {
+            FieldSpec::Roots(_, ds) => {
+                // Σ q_S·√(Π_{d∈S} d) over the subsets S of the generators
+                let terms: Vec<Cyclo> = (0..1u32 << ds.len())
+                    .map(|mask| {
+                        ds.iter()
+                            .enumerate()
+                            .filter(|(i, _)| mask & (1 << i) != 0)
+                            .map(|(_, &d)| {
+                                sqrt_rational(&BigRational::from_integer(BigInt::from(d)))
+                                    .expect("small roots are cyclotomic")
+                            })
+                            .fold(Cyclo::one(), |a, b| &a * &b)
+                    })
+                    .collect();
+                proptest::collection::vec(rational(), terms.len())
+                    .prop_map(move |qs| qs.iter().zip(&terms).map(|(q, t)| q * t).sum())
+                    .boxed()
+            }
+            spec => {
+                let n = spec.home();
+                proptest::collection::vec(rational(), totient(n))
+                    .prop_map(move |qs| {
+                        let x: Cyclo = qs
+                            .iter()
+                            .enumerate()
+                            .map(|(j, q)| q * &Cyclo::zeta(n, j as i64))
+                            .sum();
+                        &x + &x.conj()
+                    })
+                    .boxed()
+            }
+        }
+    }
+
+    fn specs() -> Vec<FieldSpec> {
+        HOMES
+            .iter()
+            .flat_map(|&n| candidates(n))
+            .filter(|s| !matches!(s, FieldSpec::Cyclotomic(_)))
+            .collect()
+    }
+
+    #[allow(clippy::type_complexity)]
+    fn cases() -> impl Strategy<Value = (FieldSpec, Vec<Cyclo>, Vec<Cyclo>, Cyclo)> {
+        proptest::sample::select(specs()).prop_flat_map(|spec| {
+            let x = number(spec.clone());
+            (
+                Just(spec),
+                proptest::collection::vec(x.clone(), 1..5),
+                proptest::collection::vec(x.clone(), 5),
+                x,
+            )
+        })
+    }
+
+    fn agree<I: KInt>(
+        f: &KField,
+        a: &[Cyclo],
+        b: &[Cyclo],
+        s: &Cyclo,
+        never_declines: bool,
+    ) -> Result<(), TestCaseError> {
+        let b = &b[..a.len()];
+        let ka = KVec::<I>::from_cyclos(f, a).expect("small numbers of the field");
+        let kb = KVec::<I>::from_cyclos(f, b).expect("small numbers of the field");
+        prop_assert!(ka.to_cyclos(f) == a);
+        let exact: Cyclo = a.iter().zip(b).map(|(x, y)| x * y).sum();
+        prop_assert!(ka.dot(&kb, f).expect("small") == exact);
+        let mut kc = ka.clone();
+        kc.sub_scaled(s, &kb, f).expect("small");
+        let exact: Vec<Cyclo> = a.iter().zip(b).map(|(x, y)| x - &(s * y)).collect();
+        prop_assert!(kc.to_cyclos(f) == exact);
+        // products and inverses of single numbers
+        let mut sn = vec![I::zero(); f.phi()];
+        let sd = f.elem_of(s, &mut sn).expect("in the field");
+        let an = ka.entry(0, f.phi()).to_vec();
+        let (pn, pd) = f.mul(&an, &ka.den, &sn, &sd).expect("small");
+        prop_assert!(f.cyclo_of(&pn, &pd) == &a[0] * s);
+        if !s.is_zero() {
+            // the inverse of a number of degree 8 may outgrow 128 bits (declined, never wrong)
+            match f.inverse(&sn, &sd) {
+                Some((inn, ind)) => {
+                    prop_assert!(f.cyclo_of(&inn, &ind) == s.inv().expect("nonzero"))
+                }
+                None => prop_assert!(!never_declines, "inverse declined"),
+            }
+        }
+        Ok(())
+    }
+
+    proptest! {
+        #![proptest_config(ProptestConfig::with_cases(200))]
+        #[test]
+        fn same_numbers_as_cyclo((spec, a, b, s) in cases()) {
+            let f = KField::of(&spec).expect("the candidate fields can be built");
+            prop_assert!(f.phi() < totient(spec.home()));
+            agree::<i128>(&f, &a, &b, &s, f.phi() <= 4)?;
+            agree::<BigInt>(&f, &a, &b, &s, true)?;
+        }
+    }
+
+    #[test]
+    fn numbers_outside_are_refused() {
+        for spec in specs() {
+            let f = KField::of(&spec).unwrap();
+            let n = spec.home();
+            // ζₙ is not real (n > 2)
+            assert!(f.elem(&Cyclo::zeta(n, 1)).is_none(), "{spec:?}");
+            let mut out = vec![BigInt::from(0); f.phi()];
+            assert!(
+                f.elem_of(&Cyclo::zeta(n, 1), &mut out).is_none(),
+                "{spec:?}"
+            );
+        }
+        let f = KField::of(&FieldSpec::Roots(60, vec![3, 5])).unwrap();
+        let c = &Cyclo::zeta(60, 1) + &Cyclo::zeta(60, -1);
+        assert!(f.elem(&c).is_none());
+        // and what lies inside is taken: √15 = √3·√5
+        let r15 = sqrt_rational(&BigRational::from_integer(BigInt::from(15))).unwrap();
+        assert!(f.elem(&r15).is_some());
+    }
+}

@@ -7,17 +7,17 @@
 //! other partners follow from R·s₁ = Σᵢ sᵢ·D(R)ᵢ₁ for d operations with independent columns,
 //! which costs d applications of R instead of a sum over the group.
 
-use super::fast::{common_field, field_lcm, FastBasis, FastIrrep};
+use super::fast::{common_field, field_lcm, FastBasis, FastIrrep, Images};
 use super::irreps::{real_irreps, IrrepError, Matrix, RealIrrep};
 use super::project::{inverses, partner_one_images, transfer};
 use crate::basis::{Basis, Member};
-use crate::exact::{solve_field, Cyclo, KInt, KTable, KVec};
+use crate::exact::{field_candidates, solve_field, Cyclo, FieldSpec, KInt, KVec};
 use crate::group::PointGroup;
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::One;
 use std::collections::HashMap;
-use std::sync::Arc;
+use std::sync::{Arc, Mutex, OnceLock};
 use std::time::{Duration, Instant};
 
 /// What a SALC is, beyond its symmetry.
@@ -194,8 +194,9 @@ pub fn salcs_on(
     let reps: Vec<usize> = b.site_orbits().iter().map(|o| o[0]).collect();
     let mut out = Vec::new();
     let clock = Ceiling::new();
-    // the integer-form engine, per irrep over the one field holding the basis images, the
-    // irrep's matrices and the presets (Q(ζ₅) for most Ih irreps, Q(ζ₆₀) where √3 enters too)
+    // the integer-form engine, per irrep over a field holding the basis images, the irrep's
+    // matrices and the presets: first their storage field Q(ζₙ) (Q(ζ₅) for most Ih irreps,
+    // Q(ζ₆₀) where √3 enters too), then the smallest subfield of it that holds them all
     let base_field = (arithmetic != Arithmetic::General)
         .then_some(())
         .and_then(|()| {
@@ -208,15 +209,17 @@ pub fn salcs_on(
                     .chain(presets.iter().flat_map(|s| s.vector.iter())),
             )
         });
-    let mut fast_bases: HashMap<u32, Option<FastBasis>> = HashMap::new();
-    let mut big_bases: HashMap<u32, Option<FastBasis<BigInt>>> = HashMap::new();
+    let images = Images::new(b);
+    let mut fast_bases: HashMap<FieldSpec, Option<FastBasis>> = HashMap::new();
+    let mut fast_presets: HashMap<FieldSpec, Option<Vec<KVec>>> = HashMap::new();
+    let mut big_bases: HashMap<FieldSpec, Option<FastBasis<BigInt>>> = HashMap::new();
     let mut arith = Vec::new();
     for (x, ir) in irreps.iter().enumerate() {
         let n = mult[x] as usize;
         if n == 0 || only.is_some_and(|o| o != x) {
             continue;
         }
-        let recipe = PartnerRecipe::new(ir);
+        let recipe = PartnerRecipe::of(&b.group, ir);
         let job = Job {
             b,
             ir,
@@ -227,27 +230,50 @@ pub fn salcs_on(
             presets,
             clock: &clock,
         };
-        let field = base_field
+        let home = base_field
             .and_then(|nb| field_lcm(nb, common_field(ir.mats.iter().flatten().flatten())?));
-        let fast_basis = field.and_then(|n| {
-            fast_bases
-                .entry(n)
-                .or_insert_with(|| FastBasis::new(b, n))
-                .as_ref()
-        });
-        let mut quick = match fast_basis.filter(|_| arithmetic == Arithmetic::Fastest) {
-            Some(fb) => fast_tuples(&job, fb, &recipe)?,
-            None => None,
-        };
+        // the smallest field holding the basis images, the irrep's matrices and the presets
+        // (a real subfield where they are all real: Q(√3, √5) instead of Q(ζ₆₀))
+        let mut chosen: Option<FieldSpec> = None;
+        let mut quick = None;
         let mut ran = Arithmetic::Fastest;
+        for spec in home.map(field_candidates).unwrap_or_default() {
+            let fb = fast_bases
+                .entry(spec.clone())
+                .or_insert_with(|| FastBasis::new(&images, &spec));
+            let Some(fb) = fb.as_ref() else { continue };
+            let Some(fi) = FastIrrep::cached(&b.group, ir, &recipe.minv, &spec) else {
+                continue;
+            };
+            let pre = fast_presets.entry(spec.clone()).or_insert_with(|| {
+                presets
+                    .iter()
+                    .map(|p| KVec::from_cyclos(&fb.f, &p.vector))
+                    .collect()
+            });
+            let Some(pre) = pre.as_ref() else { continue };
+            chosen = Some(spec.clone());
+            if arithmetic == Arithmetic::Fastest {
+                quick = fast_tuples(&job, fb, &fi, pre, &recipe)?;
+            }
+            break;
+        }
         if quick.is_none() {
-            // 128 bits overflowed (or no field): the same steps on big integers over the field
-            if let Some(n_field) = field {
-                let big = big_bases
-                    .entry(n_field)
-                    .or_insert_with(|| FastBasis::<BigInt>::new(b, n_field));
-                if let Some(fb) = big.as_ref() {
-                    quick = fast_tuples(&job, fb, &recipe)?;
+            // 128 bits overflowed: the same steps on big integers over the same field
+            if let Some(spec) = chosen.clone() {
+                let fb = big_bases
+                    .entry(spec.clone())
+                    .or_insert_with(|| FastBasis::<BigInt>::new(&images, &spec))
+                    .as_ref();
+                let fi = fb.and_then(|fb| FastIrrep::<BigInt>::new(&fb.f, ir, &recipe.minv));
+                let pre: Option<Vec<KVec<BigInt>>> = fb.and_then(|fb| {
+                    presets
+                        .iter()
+                        .map(|p| KVec::from_cyclos(&fb.f, &p.vector))
+                        .collect()
+                });
+                if let (Some(fb), Some(fi), Some(pre)) = (fb, fi, pre) {
+                    quick = fast_tuples(&job, fb, &fi, &pre, &recipe)?;
                     ran = Arithmetic::BigIntegers;
                 }
             }
@@ -352,7 +378,7 @@ fn partner_ones(job: &Job) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
             .expect("a nonzero real vector has length² > 0")
     };
     let complex_type = ir.pair.is_some();
-    let recipe = PartnerRecipe::new(ir);
+    let recipe = PartnerRecipe::of(&b.group, ir);
     let mut offer = |v: Vec<Cyclo>, role: Role, found: &mut Vec<(Vec<Cyclo>, Role)>| {
         let mut v = v;
         for (c, nc) in &ortho {
@@ -416,45 +442,40 @@ type Tuple = Vec<Vec<Cyclo>>;
 fn fast_tuples<I: KInt>(
     job: &Job,
     fb: &FastBasis<I>,
+    fi: &FastIrrep<I>,
+    presets: &[KVec<I>],
     recipe: &PartnerRecipe,
 ) -> Result<Option<Vec<(Tuple, Role)>>, SalcError> {
     let (b, ir, n, inv, reps, clock) = (job.b, job.ir, job.n, job.inv, job.reps, job.clock);
     let f = &fb.f;
-    let Some(fi) = FastIrrep::new(fb, ir) else {
-        return Ok(None);
-    };
-    let Some(minv) = KTable::<I>::from_cyclos(f, recipe.minv.iter().flatten()) else {
-        return Ok(None);
-    };
     let complex_type = ir.pair.is_some();
+    // each vector new ones must be orthogonal to, with 1/(its length²) as a field number
+    type Scalar<I> = (Vec<I>, I);
     let mut found: Vec<(KVec<I>, Role)> = Vec::new();
-    let mut ortho: Vec<(KVec<I>, Cyclo)> = Vec::new();
-    let inv_len2 = |v: &KVec<I>| -> Option<Cyclo> {
-        Some(
-            v.dot(v, f)?
-                .inv()
-                .expect("a nonzero real vector has length² > 0"),
-        )
+    let mut ortho: Vec<(KVec<I>, Scalar<I>)> = Vec::new();
+    let inv_len2 = |v: &KVec<I>| -> Option<Scalar<I>> {
+        let (nn, dd) = v.dot_in(v, f)?;
+        f.inverse(&nn, &dd)
     };
     // Some(()) = done (kept or rejected); None = overflow
     let offer = |mut v: KVec<I>,
                  role: Role,
                  found: &mut Vec<(KVec<I>, Role)>,
-                 ortho: &mut Vec<(KVec<I>, Cyclo)>|
+                 ortho: &mut Vec<(KVec<I>, Scalar<I>)>|
      -> Option<()> {
-        for (c, nc) in ortho.iter() {
-            let d = v.dot(c, f)?;
-            if d.is_zero() {
+        for (c, (nn, nd)) in ortho.iter() {
+            let (dn, dd) = v.dot_in(c, f)?;
+            if dn.iter().all(I::is_zero) {
                 continue;
             }
-            let s = &d * nc;
-            v.sub_scaled(&s, c, f)?;
+            let (sn, sd) = f.mul(&dn, &dd, nn, nd)?;
+            v.sub_scaled_in(&sn, &sd, c, f)?;
         }
         if v.is_zero() {
             return Some(());
         }
         if complex_type {
-            for p in super::fast::partners(fb, &recipe.ops, &minv, &v)?
+            for p in super::fast::partners(fb, &recipe.ops, fi, &v)?
                 .into_iter()
                 .skip(1)
             {
@@ -467,13 +488,11 @@ fn fast_tuples<I: KInt>(
         found.push((v, role));
         Some(())
     };
-    for preset in job.presets {
+    for (preset, pv) in job.presets.iter().zip(presets) {
         if !job.wants(preset, found.iter().map(|f| f.1)) {
             continue;
         }
-        let Some(v) =
-            KVec::from_cyclos(f, &preset.vector).and_then(|v| fi.transfer_11(fb, inv, &v))
-        else {
+        let Some(v) = fi.transfer_11(fb, inv, pv) else {
             return Ok(None);
         };
         if offer(v, preset.role, &mut found, &mut ortho).is_none() {
@@ -506,7 +525,7 @@ fn fast_tuples<I: KInt>(
     let mut out = Vec::with_capacity(found.len());
     for (s1, role) in found {
         clock.check(&ir.label)?;
-        let Some(tuple) = super::fast::partners(fb, &recipe.ops, &minv, &s1) else {
+        let Some(tuple) = super::fast::partners(fb, &recipe.ops, fi, &s1) else {
             return Ok(None);
         };
         out.push((tuple.iter().map(|v| v.to_cyclos(f)).collect(), role));
@@ -522,6 +541,20 @@ struct PartnerRecipe {
 }
 
 impl PartnerRecipe {
+    /// The recipe of an irrep, built once per process.
+    fn of(g: &PointGroup, ir: &RealIrrep) -> Arc<PartnerRecipe> {
+        type Cache = Mutex<HashMap<(String, usize), Arc<PartnerRecipe>>>;
+        static C: OnceLock<Cache> = OnceLock::new();
+        let c = C.get_or_init(|| Mutex::new(HashMap::new()));
+        let key = (g.name().to_string(), ir.row);
+        if let Some(r) = c.lock().expect("recipe cache").get(&key) {
+            return r.clone();
+        }
+        let r = Arc::new(PartnerRecipe::new(ir));
+        c.lock().expect("recipe cache").insert(key, r.clone());
+        r
+    }
+
     fn new(ir: &RealIrrep) -> Self {
         let d = ir.dim;
         let mut ops = Vec::new();

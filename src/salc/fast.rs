@@ -5,21 +5,65 @@
 //! generic over the integers ([`KInt`]): on i128 any overflow returns `None` and `build` redoes
 //! the irrep on big integers.
 
-use super::irreps::RealIrrep;
+use super::irreps::{Matrix, RealIrrep};
 use crate::basis::Basis;
-use crate::exact::{Cyclo, CycloKey, KField, KInt, KTable, KVec};
+use crate::exact::{Cyclo, CycloKey, FieldSpec, KField, KInt, KTable, KVec, QuickMap};
+use crate::group::PointGroup;
 use std::collections::HashMap;
-use std::sync::Arc;
+use std::sync::{Arc, Mutex, OnceLock};
 
 /// Largest field degree φ(n) worth the integer form (every molecular table is far below).
 const MAX_PHI: usize = 24;
+
+/// `[op][m]`: the (k, index of the number) pairs of R_op·e_m.
+type ImageIndex = Vec<Vec<Vec<(usize, usize)>>>;
 
 /// A basis's operation images over one field: `cols[op][m]` lists (k, index into `table`).
 pub(super) struct FastBasis<I = i128> {
     pub f: Arc<KField>,
     table: KTable<I>,
-    cols: Vec<Vec<Vec<(usize, usize)>>>,
+    cols: Arc<ImageIndex>,
     dim: usize,
+}
+
+/// A basis's operation images as indices into their distinct numbers, worked out once per
+/// basis and shared by its [`FastBasis`] over each field tried: the images repeat a few numbers
+/// (an operation's matrix entries, ±1) many times, and each is converted once.
+pub(super) struct Images<'a> {
+    entries: Vec<&'a Cyclo>,
+    cols: Arc<ImageIndex>,
+    dim: usize,
+}
+
+impl<'a> Images<'a> {
+    pub fn new(b: &'a Basis) -> Images<'a> {
+        let mut entries: Vec<&Cyclo> = Vec::new();
+        let mut seen: QuickMap<CycloKey, usize> = QuickMap::default();
+        let cols = b
+            .images
+            .iter()
+            .map(|op| {
+                op.iter()
+                    .map(|col| {
+                        col.iter()
+                            .map(|(k, c)| {
+                                let i = *seen.entry(c.key()).or_insert_with(|| {
+                                    entries.push(c);
+                                    entries.len() - 1
+                                });
+                                (*k, i)
+                            })
+                            .collect()
+                    })
+                    .collect()
+            })
+            .collect();
+        Images {
+            entries,
+            cols: Arc::new(cols),
+            dim: b.dim(),
+        }
+    }
 }
 
 /// The smallest storage field holding every number (lcm of the fields), if small enough.
@@ -41,41 +85,18 @@ pub(super) fn field_lcm(a: u32, b: u32) -> Option<u32> {
 }
 
 impl<I: KInt> FastBasis<I> {
-    /// The basis over a field of order n (a multiple of every image entry's field).
-    pub fn new(b: &Basis, n: u32) -> Option<FastBasis<I>> {
-        let f = KField::get(n);
+    /// The basis over a field holding every image entry (`None` if one is not in it).
+    pub fn new(im: &Images, spec: &FieldSpec) -> Option<FastBasis<I>> {
+        let f = KField::of(spec)?;
         if f.phi() > MAX_PHI {
             return None;
         }
-        // the images repeat a few numbers (an operation's matrix entries, ±1) many times:
-        // each distinct number is converted once
-        let mut entries: Vec<&Cyclo> = Vec::new();
-        let mut seen: HashMap<CycloKey, usize> = HashMap::new();
-        let cols = b
-            .images
-            .iter()
-            .map(|op| {
-                op.iter()
-                    .map(|col| {
-                        col.iter()
-                            .map(|(k, c)| {
-                                let i = *seen.entry(c.key()).or_insert_with(|| {
-                                    entries.push(c);
-                                    entries.len() - 1
-                                });
-                                (*k, i)
-                            })
-                            .collect()
-                    })
-                    .collect()
-            })
-            .collect();
-        let table = KTable::from_cyclos(&f, entries.into_iter())?;
+        let table = KTable::from_cyclos(&f, im.entries.iter().copied())?;
         Some(FastBasis {
             f,
             table,
-            cols,
-            dim: b.dim(),
+            cols: im.cols.clone(),
+            dim: im.dim,
         })
     }
 
@@ -102,16 +123,72 @@ impl<I: KInt> FastBasis<I> {
     }
 }
 
-/// An irrep's matrices over the basis's field: entry (op, i, j) at op·d² + i·d + j.
+/// An irrep's matrices over one field: entry (op, i, j) at op·d² + i·d + j; and the inverse
+/// matrix of its partner recipe (`build::PartnerRecipe`).
 pub(super) struct FastIrrep<I = i128> {
     table: KTable<I>,
     d: usize,
+    pub minv: KTable<I>,
+}
+
+impl FastIrrep<i128> {
+    /// The irrep over the field `spec`, converted once per process (`None`: a number is not in
+    /// that field).
+    pub fn cached(
+        g: &PointGroup,
+        ir: &RealIrrep,
+        minv: &Matrix,
+        spec: &FieldSpec,
+    ) -> Option<Arc<FastIrrep<i128>>> {
+        type Key = (String, usize, FieldSpec);
+        type Cache = Mutex<HashMap<Key, Option<Arc<FastIrrep<i128>>>>>;
+        static C: OnceLock<Cache> = OnceLock::new();
+        let c = C.get_or_init(|| Mutex::new(HashMap::new()));
+        let key = (g.name().to_string(), ir.row, spec.clone());
+        if let Some(v) = c.lock().expect("irrep table cache").get(&key) {
+            return v.clone();
+        }
+        let v = KField::of(spec)
+            .and_then(|f| FastIrrep::new(&f, ir, minv))
+            .map(Arc::new);
+        c.lock().expect("irrep table cache").insert(key, v.clone());
+        v
+    }
 }
 
 impl<I: KInt> FastIrrep<I> {
-    pub fn new(fb: &FastBasis<I>, ir: &RealIrrep) -> Option<FastIrrep<I>> {
-        let table = KTable::from_cyclos(&fb.f, ir.mats.iter().flatten().flatten())?;
-        Some(FastIrrep { table, d: ir.dim })
+    pub fn new(f: &KField, ir: &RealIrrep, minv: &Matrix) -> Option<FastIrrep<I>> {
+        // the matrices repeat few numbers: each distinct one is converted once
+        let mut entries: Vec<&Cyclo> = Vec::new();
+        let mut seen: QuickMap<CycloKey, usize> = QuickMap::default();
+        let index: Vec<usize> = ir
+            .mats
+            .iter()
+            .flatten()
+            .flatten()
+            .map(|c| {
+                *seen.entry(c.key()).or_insert_with(|| {
+                    entries.push(c);
+                    entries.len() - 1
+                })
+            })
+            .collect();
+        let distinct = KTable::from_cyclos(f, entries.into_iter())?;
+        let phi = f.phi();
+        let mut num = Vec::with_capacity(index.len() * phi);
+        for &i in &index {
+            num.extend_from_slice(distinct.at(i, phi));
+        }
+        let table = KTable {
+            num,
+            den: distinct.den,
+        };
+        let minv = KTable::from_cyclos(f, minv.iter().flatten())?;
+        Some(FastIrrep {
+            table,
+            d: ir.dim,
+            minv,
+        })
     }
     #[inline]
     fn at(&self, op: usize, i: usize, j: usize, phi: usize) -> &[I] {
@@ -182,9 +259,10 @@ impl<I: KInt> FastIrrep<I> {
 pub(super) fn partners<I: KInt>(
     fb: &FastBasis<I>,
     ops: &[usize],
-    minv: &KTable<I>,
+    fi: &FastIrrep<I>,
     s1: &KVec<I>,
 ) -> Option<Vec<KVec<I>>> {
+    let minv = &fi.minv;
     let d = ops.len();
     if d == 1 {
         return Some(vec![s1.clone()]);

@@ -351,6 +351,9 @@ fn mat_mul(a: &Matrix, b: &Matrix) -> Matrix {
 fn extend_from_generators(g: &PointGroup, gens: &[usize], gen_mats: Vec<Matrix>) -> Vec<Matrix> {
     let gen_steps = generation(g);
     let steps = &gen_steps.1;
+    if let Some(m) = super::fast_mats::extend(g.order(), gens, &gen_mats, steps) {
+        return m;
+    }
     let d = gen_mats[0].len();
     let identity: Matrix = (0..d)
         .map(|i| (0..d).map(|j| Cyclo::from_int((i == j) as i64)).collect())
@@ -391,6 +394,9 @@ fn from_tuple(g: &PointGroup, t: &FunctionTuple, chars: &[Cyclo]) -> Option<Vec<
 
 /// B = Σ_R A(R)ᵀ A(R): positive definite and invariant.
 fn invariant_form_from(mats: &[Matrix]) -> Matrix {
+    if let Some(b) = super::fast_mats::invariant_form(mats) {
+        return b;
+    }
     let d = mats[0].len();
     let mut b = vec![vec![Cyclo::zero(); d]; d];
     for a in mats {

@@ -9,6 +9,7 @@ mod build;
 mod coords;
 mod display;
 mod fast;
+mod fast_mats;
 mod float;
 mod irreps;
 mod project;
