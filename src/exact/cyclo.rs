@@ -153,6 +153,12 @@ impl Cyclo {
         self.coeffs.iter().map(Rat::to_big).collect()
     }
 
+    /// Stored identically (same field, same coefficients): what [`Cyclo::key`] equality says,
+    /// without building the keys.
+    pub fn same_form(&self, other: &Self) -> bool {
+        self.n == other.n && self.coeffs == other.coeffs
+    }
+
     /// A key that identifies the number (its field and coefficients), for memo tables.
     pub fn key(&self) -> CycloKey {
         CycloKey(self.n, self.coeffs.clone())

@@ -289,15 +289,16 @@ pub fn salcs_on(
                 let mut t = Vec::with_capacity(firsts.len());
                 for (s1, role) in firsts {
                     clock.check(&ir.label)?;
-                    t.push((recipe.partners(b, s1), role));
+                    t.push((recipe.partners(b, s1), None, role));
                 }
                 t
             }
         };
-        for (c, (tuple, role)) in tuples.into_iter().enumerate() {
-            let tuple = tidy_tuple(tuple);
+        for (c, (tuple, norms, role)) in tuples.into_iter().enumerate() {
+            let sign = tuple_sign(&tuple);
             for (p, v) in tuple.into_iter().enumerate() {
-                let (coefficients, norm2) = display_form(v);
+                let hint = norms.as_ref().map(|n| n[p].clone());
+                let (coefficients, norm2) = shown(v, sign, hint);
                 out.push(Salc {
                     irrep: x,
                     label: ir.label.clone(),
@@ -436,6 +437,9 @@ fn partner_ones(job: &Job) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
 /// The d partners of one SALC.
 type Tuple = Vec<Vec<Cyclo>>;
 
+/// The partner tuples of an irrep: partners, their lengths² when known, role.
+type Tuples = Vec<(Tuple, Option<Vec<Cyclo>>, Role)>;
+
 /// Partner tuples of one irrep on the integer-form engine: the same steps as [`partner_ones`]
 /// and [`PartnerRecipe::partners`], so the same vectors up to positive rational factors (which
 /// `tidy_tuple` removes). `Ok(None)` when a number outgrew the integers `I` (i128).
@@ -445,7 +449,7 @@ fn fast_tuples<I: KInt>(
     fi: &FastIrrep<I>,
     presets: &[KVec<I>],
     recipe: &PartnerRecipe,
-) -> Result<Option<Vec<(Tuple, Role)>>, SalcError> {
+) -> Result<Option<Tuples>, SalcError> {
     let (b, ir, n, inv, reps, clock) = (job.b, job.ir, job.n, job.inv, job.reps, job.clock);
     let f = &fb.f;
     let complex_type = ir.pair.is_some();
@@ -528,7 +532,19 @@ fn fast_tuples<I: KInt>(
         let Some(tuple) = super::fast::partners(fb, &recipe.ops, fi, &s1) else {
             return Ok(None);
         };
-        out.push((tuple.iter().map(|v| v.to_cyclos(f)).collect(), role));
+        // the partners' lengths² come cheaply here, in the field
+        let mut norms = Vec::with_capacity(tuple.len());
+        for v in &tuple {
+            let Some((nn, nd)) = v.dot_in(v, f) else {
+                return Ok(None);
+            };
+            norms.push(f.cyclo_of(&nn, &nd));
+        }
+        out.push((
+            tuple.iter().map(|v| v.to_cyclos(f)).collect(),
+            Some(norms),
+            role,
+        ));
     }
     Ok(Some(out))
 }
@@ -625,44 +641,56 @@ fn tidy(v: Vec<Cyclo>) -> Vec<Cyclo> {
     }
 }
 
-/// Tidy a partner tuple by one common positive factor (keeps R·sⱼ = Σ sᵢ Dᵢⱼ), sign so that the
-/// first partner's first nonzero coefficient is positive.
-fn tidy_tuple(t: Vec<Vec<Cyclo>>) -> Vec<Vec<Cyclo>> {
-    let all: Vec<Cyclo> = t.iter().flatten().cloned().collect();
-    let mut r = Cyclo::primitive_factor(&all).unwrap_or_else(BigRational::one);
-    let first = t[0].iter().find(|c| !c.is_zero());
+/// The sign that makes a partner tuple's first partner start with a positive coefficient: the
+/// whole tuple is multiplied by it (keeps R·sⱼ = Σ sᵢ Dᵢⱼ).
+fn tuple_sign(t: &[Vec<Cyclo>]) -> i64 {
+    let first = t.first().and_then(|v| v.iter().find(|c| !c.is_zero()));
     if first.is_some_and(|c| c.signum_real() < 0) {
-        r = -r;
+        -1
+    } else {
+        1
     }
-    if r.is_one() {
-        return t;
-    }
-    t.into_iter().map(|v| scale_rational(v, &r)).collect()
 }
 
 /// The shortest form of one SALC to print: when all coefficients are rational multiples of one
-/// another, a primitive integer vector with the same direction and sign; else the tidied vector.
+/// another, a primitive integer vector with the same direction and sign; else the vector cleared
+/// of common denominators and content by a positive rational factor.
 pub fn display_form(v: Vec<Cyclo>) -> (Vec<Cyclo>, Cyclo) {
-    let w = match v.iter().find(|c| !c.is_zero()) {
-        Some(f) => {
-            let ratios: Option<Vec<Cyclo>> = v
-                .iter()
-                .map(|c| c.rational_ratio(f).map(Cyclo::from_rational))
-                .collect();
-            if let Some(ratios) = ratios {
-                let sign = f.signum_real();
-                let w = tidy(ratios);
-                if sign < 0 {
-                    w.into_iter().map(|c| -c).collect()
-                } else {
-                    w
-                }
-            } else {
-                tidy(v)
-            }
-        }
-        None => v,
+    shown(v, 1, None)
+}
+
+/// [`display_form`] of sign·v, given v's length² when already known (scaling by the rational
+/// factor r multiplies it by r²).
+fn shown(v: Vec<Cyclo>, sign: i64, norm2: Option<Cyclo>) -> (Vec<Cyclo>, Cyclo) {
+    let Some(f) = v.iter().find(|c| !c.is_zero()) else {
+        return (v, Cyclo::zero());
     };
-    let n2 = super::fast::self_dot(&w).unwrap_or_else(|| dot(&w, &w));
+    let ratios: Option<Vec<Cyclo>> = v
+        .iter()
+        .map(|c| c.rational_ratio(f).map(Cyclo::from_rational))
+        .collect();
+    if let Some(ratios) = ratios {
+        let negative = (f.signum_real() < 0) != (sign < 0);
+        let w = tidy(ratios);
+        let w: Vec<Cyclo> = if negative {
+            w.into_iter().map(|c| -c).collect()
+        } else {
+            w
+        };
+        let n2 = super::fast::self_dot(&w).unwrap_or_else(|| dot(&w, &w));
+        return (w, n2);
+    }
+    let mut r = Cyclo::primitive_factor(&v).unwrap_or_else(BigRational::one);
+    if sign < 0 {
+        r = -r;
+    }
+    let n2 = match norm2 {
+        Some(n) => n.scale(&(&r * &r)),
+        None => {
+            let w = scale_rational(v.clone(), &r);
+            super::fast::self_dot(&w).unwrap_or_else(|| dot(&w, &w))
+        }
+    };
+    let w = if r.is_one() { v } else { scale_rational(v, &r) };
     (w, n2)
 }

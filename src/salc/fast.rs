@@ -15,6 +15,9 @@ use std::sync::{Arc, Mutex, OnceLock};
 /// Largest field degree φ(n) worth the integer form (every molecular table is far below).
 const MAX_PHI: usize = 24;
 
+/// Distinct numbers per operation looked up without hashing.
+const RECENT: usize = 12;
+
 /// `[op][m]`: the (k, index of the number) pairs of R_op·e_m.
 type ImageIndex = Vec<Vec<Vec<(usize, usize)>>>;
 
@@ -39,18 +42,28 @@ impl<'a> Images<'a> {
     pub fn new(b: &'a Basis) -> Images<'a> {
         let mut entries: Vec<&Cyclo> = Vec::new();
         let mut seen: QuickMap<CycloKey, usize> = QuickMap::default();
+        // one operation's images hold few distinct numbers (a Cartesian basis: its 3×3 matrix
+        // entries): those are looked up in a short list first, the map only when new
+        let mut recent: Vec<(&Cyclo, usize)> = Vec::with_capacity(RECENT);
         let cols = b
             .images
             .iter()
             .map(|op| {
+                recent.clear();
                 op.iter()
                     .map(|col| {
                         col.iter()
                             .map(|(k, c)| {
+                                if let Some(&(_, i)) = recent.iter().find(|(x, _)| x.same_form(c)) {
+                                    return (*k, i);
+                                }
                                 let i = *seen.entry(c.key()).or_insert_with(|| {
                                     entries.push(c);
                                     entries.len() - 1
                                 });
+                                if recent.len() < RECENT {
+                                    recent.push((c, i));
+                                }
                                 (*k, i)
                             })
                             .collect()
@@ -306,13 +319,16 @@ pub(super) fn partners<I: KInt>(
     Some(out)
 }
 
-/// Σ vᵢ² on machine integers over the vector's own field (`None`: too large, or fields too
-/// big; the caller then uses Cyclo arithmetic).
+/// Σ vᵢ² on integers over the vector's own field: machine integers, or big integers where
+/// those overflow (`None`: fields too big; the caller then uses Cyclo arithmetic).
 pub(super) fn self_dot(v: &[Cyclo]) -> Option<Cyclo> {
     let f = KField::get(common_field(v.iter())?);
     if f.phi() > MAX_PHI {
         return None;
     }
-    let k = KVec::<i128>::from_cyclos(&f, v)?;
+    if let Some(d) = KVec::<i128>::from_cyclos(&f, v).and_then(|k| k.dot(&k, &f)) {
+        return Some(d);
+    }
+    let k = KVec::<num_bigint::BigInt>::from_cyclos(&f, v)?;
     k.dot(&k, &f)
 }
