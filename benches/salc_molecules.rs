@@ -3,7 +3,8 @@
 //! decimals (the decimals must not change the cost: exact coefficients come from the table's
 //! exact operations and the permutation of atoms). Target: each molecule ≤ 50 ms, all ≤ 2 s.
 //! The whole path is timed from XYZ text: read, detect, orient, bases, exact SALCs.
-//! `SALCDESK_BENCH_PASS_ONLY=1` stops after the first timed pass (per-molecule times).
+//! `SALCDESK_BENCH_PASS_ONLY=1` stops after the first timed pass (per-molecule times);
+//! `SALCDESK_BENCH_ONLY=TEXT` keeps only the molecules whose names contain TEXT.
 
 #[path = "../tests/geom_molecules.rs"]
 mod molecules;
@@ -90,7 +91,12 @@ fn all_bases(text: &str) -> usize {
 }
 
 fn bench(c: &mut Criterion) {
-    let inputs = inputs();
+    let mut inputs = inputs();
+    if let Some(only) = std::env::var_os("SALCDESK_BENCH_ONLY") {
+        // profiling one molecule's cases: keep only the names containing this text
+        let only = only.to_string_lossy().to_string();
+        inputs.retain(|(name, _)| name.contains(&only));
+    }
     // One timed pass first, to name the slowest molecules (criterion times the whole set).
     let mut times: Vec<(Duration, &str)> = inputs
         .iter()
@@ -107,7 +113,10 @@ fn bench(c: &mut Criterion) {
         .collect();
     times.sort();
     let total: Duration = times.iter().map(|t| t.0).sum();
-    eprintln!("150 molecules, all bases: total {total:?} (first pass, caches cold)");
+    eprintln!(
+        "{} molecules, all bases: total {total:?} (first pass, caches cold)",
+        inputs.len()
+    );
     for (t, name) in times.iter().rev().take(5) {
         eprintln!("  slowest: {name}: {t:?}");
     }

@@ -175,19 +175,46 @@ impl KField {
         if b[1..].iter().all(|&x| x == 0) {
             return self.mul_acc_i128(acc, b, a);
         }
-        let mut conv = [0i128; 64];
-        let conv = if 2 * phi - 1 <= 64 {
-            &mut conv[..2 * phi - 1]
-        } else {
-            return self.mul_acc_long(acc, a, b);
-        };
-        for (i, &x) in a.iter().enumerate() {
-            if x == 0 {
-                continue;
+        // a product buffer no longer than needed (zeroing 64 entries for a degree-2 field cost
+        // more than the product itself)
+        match 2 * phi - 1 {
+            0..=3 => self.mul_acc_buf::<3>(acc, a, b),
+            4..=7 => self.mul_acc_buf::<7>(acc, a, b),
+            8..=15 => self.mul_acc_buf::<15>(acc, a, b),
+            16..=31 => self.mul_acc_buf::<31>(acc, a, b),
+            32..=63 => self.mul_acc_buf::<63>(acc, a, b),
+            _ => self.mul_acc_long(acc, a, b),
+        }
+    }
+
+    /// acc += a·b with a product buffer of N ≥ 2φ − 1 entries.
+    #[inline]
+    fn mul_acc_buf<const N: usize>(&self, acc: &mut [i128], a: &[i128], b: &[i128]) -> Option<()> {
+        let phi = self.phi;
+        let mut buf = [0i128; N];
+        let conv = &mut buf[..2 * phi - 1];
+        // Parts below 2⁶⁰ (the usual case): each product is one 64×64 → 128-bit multiply and
+        // below 2¹²⁰, and at most 63 of them sum below 2¹²⁶, so no step can overflow.
+        const SMALL: u128 = 1 << 60;
+        if a.iter().chain(b).all(|x| x.unsigned_abs() < SMALL) {
+            for (i, &x) in a.iter().enumerate() {
+                if x == 0 {
+                    continue;
+                }
+                let x = x as i64 as i128;
+                for (c, &y) in conv[i..].iter_mut().zip(b) {
+                    *c += x * (y as i64 as i128);
+                }
             }
-            for (j, &y) in b.iter().enumerate() {
-                if y != 0 {
-                    conv[i + j] = conv[i + j].checked_add(x.checked_mul(y)?)?;
+        } else {
+            for (i, &x) in a.iter().enumerate() {
+                if x == 0 {
+                    continue;
+                }
+                for (j, &y) in b.iter().enumerate() {
+                    if y != 0 {
+                        conv[i + j] = conv[i + j].checked_add(x.checked_mul(y)?)?;
+                    }
                 }
             }
         }

@@ -16,6 +16,7 @@ use crate::group::PointGroup;
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::One;
+use rayon::prelude::*;
 use std::collections::HashMap;
 use std::sync::{Arc, Mutex, OnceLock};
 use std::time::{Duration, Instant};
@@ -192,7 +193,6 @@ pub fn salcs_on(
     let mult = real_multiplicities(b, &irreps)?;
     let inv = inverses(b);
     let reps: Vec<usize> = b.site_orbits().iter().map(|o| o[0]).collect();
-    let mut out = Vec::new();
     let clock = Ceiling::new();
     // the integer-form engine, per irrep over a field holding the basis images, the irrep's
     // matrices and the presets: first their storage field Q(ζₙ) (Q(ζ₅) for most Ih irreps,
@@ -212,68 +212,79 @@ pub fn salcs_on(
     let images = Images::new(b);
     let mut fast_bases: HashMap<FieldSpec, Option<FastBasis>> = HashMap::new();
     let mut fast_presets: HashMap<FieldSpec, Option<Vec<KVec>>> = HashMap::new();
-    let mut big_bases: HashMap<FieldSpec, Option<FastBasis<BigInt>>> = HashMap::new();
-    let mut arith = Vec::new();
+    // First, per irrep, the smallest field holding the basis images, the irrep's matrices and
+    // the presets (a real subfield where they are all real: Q(√3, √5) instead of Q(ζ₆₀)) …
+    struct Plan {
+        x: usize,
+        spec: Option<(FieldSpec, Arc<FastIrrep>)>,
+    }
+    let mut plans: Vec<Plan> = Vec::new();
     for (x, ir) in irreps.iter().enumerate() {
-        let n = mult[x] as usize;
-        if n == 0 || only.is_some_and(|o| o != x) {
+        if mult[x] == 0 || only.is_some_and(|o| o != x) {
             continue;
         }
         let recipe = PartnerRecipe::of(&b.group, ir);
-        let job = Job {
-            b,
-            ir,
-            x,
-            n,
-            inv: &inv,
-            reps: &reps,
-            presets,
-            clock: &clock,
-        };
         let home = base_field
             .and_then(|nb| field_lcm(nb, common_field(ir.mats.iter().flatten().flatten())?));
-        // the smallest field holding the basis images, the irrep's matrices and the presets
-        // (a real subfield where they are all real: Q(√3, √5) instead of Q(ζ₆₀))
-        let mut chosen: Option<FieldSpec> = None;
-        let mut quick = None;
-        let mut ran = Arithmetic::Fastest;
-        for spec in home.map(field_candidates).unwrap_or_default() {
+        let mut spec = None;
+        for candidate in home.map(field_candidates).unwrap_or_default() {
             let fb = fast_bases
-                .entry(spec.clone())
-                .or_insert_with(|| FastBasis::new(&images, &spec));
+                .entry(candidate.clone())
+                .or_insert_with(|| FastBasis::new(&images, &candidate));
             let Some(fb) = fb.as_ref() else { continue };
-            let Some(fi) = FastIrrep::cached(&b.group, ir, &recipe.minv, &spec) else {
+            let Some(fi) = FastIrrep::cached(&b.group, ir, &recipe.minv, &candidate) else {
                 continue;
             };
-            let pre = fast_presets.entry(spec.clone()).or_insert_with(|| {
+            let pre = fast_presets.entry(candidate.clone()).or_insert_with(|| {
                 presets
                     .iter()
                     .map(|p| KVec::from_cyclos(&fb.f, &p.vector))
                     .collect()
             });
-            let Some(pre) = pre.as_ref() else { continue };
-            chosen = Some(spec.clone());
-            if arithmetic == Arithmetic::Fastest {
-                quick = fast_tuples(&job, fb, &fi, pre, &recipe)?;
+            if pre.is_some() {
+                spec = Some((candidate, fi));
+                break;
             }
-            break;
         }
-        if quick.is_none() {
-            // 128 bits overflowed: the same steps on big integers over the same field
-            if let Some(spec) = chosen.clone() {
-                let fb = big_bases
-                    .entry(spec.clone())
-                    .or_insert_with(|| FastBasis::<BigInt>::new(&images, &spec))
-                    .as_ref();
-                let fi = fb.and_then(|fb| FastIrrep::<BigInt>::new(&fb.f, ir, &recipe.minv));
-                let pre: Option<Vec<KVec<BigInt>>> = fb.and_then(|fb| {
+        plans.push(Plan { x, spec });
+    }
+    // … then the irreps side by side (they share nothing but read-only tables and caches).
+    let one = |plan: &Plan| -> Result<(Vec<Salc>, Arithmetic), SalcError> {
+        let x = plan.x;
+        let ir = &irreps[x];
+        let recipe = PartnerRecipe::of(&b.group, ir);
+        let job = Job {
+            b,
+            ir,
+            x,
+            n: mult[x] as usize,
+            inv: &inv,
+            reps: &reps,
+            presets,
+            clock: &clock,
+        };
+        let mut quick = None;
+        let mut ran = Arithmetic::Fastest;
+        if let Some((spec, fi)) = &plan.spec {
+            if arithmetic == Arithmetic::Fastest {
+                let fb = fast_bases[spec].as_ref().expect("planned field");
+                let pre = fast_presets[spec].as_ref().expect("planned field");
+                quick = fast_tuples(&job, fb, fi, pre, &recipe)?;
+            }
+            if quick.is_none() {
+                // 128 bits overflowed: the same steps on big integers over the same field
+                let fb = FastBasis::<BigInt>::new(&images, spec);
+                let fi = fb
+                    .as_ref()
+                    .and_then(|fb| FastIrrep::<BigInt>::new(&fb.f, ir, &recipe.minv));
+                let pre: Option<Vec<KVec<BigInt>>> = fb.as_ref().and_then(|fb| {
                     presets
                         .iter()
                         .map(|p| KVec::from_cyclos(&fb.f, &p.vector))
                         .collect()
                 });
                 if let (Some(fb), Some(fi), Some(pre)) = (fb, fi, pre) {
-                    quick = fast_tuples(&job, fb, &fi, &pre, &recipe)?;
+                    quick = fast_tuples(&job, &fb, &fi, &pre, &recipe)?;
                     ran = Arithmetic::BigIntegers;
                 }
             }
@@ -281,7 +292,6 @@ pub fn salcs_on(
         if quick.is_none() {
             ran = Arithmetic::General;
         }
-        arith.push((x, ran));
         let tuples = match quick {
             Some(t) => t,
             None => {
@@ -294,6 +304,7 @@ pub fn salcs_on(
                 t
             }
         };
+        let mut out = Vec::new();
         for (c, (tuple, norms, role)) in tuples.into_iter().enumerate() {
             let sign = tuple_sign(&tuple);
             for (p, v) in tuple.into_iter().enumerate() {
@@ -310,6 +321,15 @@ pub fn salcs_on(
                 });
             }
         }
+        Ok((out, ran))
+    };
+    let done: Vec<Result<(Vec<Salc>, Arithmetic), SalcError>> = plans.par_iter().map(one).collect();
+    let mut out = Vec::new();
+    let mut arith = Vec::new();
+    for (plan, r) in plans.iter().zip(done) {
+        let (salcs, ran) = r?;
+        out.extend(salcs);
+        arith.push((plan.x, ran));
     }
     let mut notes = b.notes.clone();
     for (x, ir) in irreps.iter().enumerate() {

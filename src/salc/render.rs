@@ -1,13 +1,14 @@
 //! A set of SALCs as text, Markdown, LaTeX or JSON: members, Γ, then per irrep each SALC as a
 //! normalization factor times a short combination with decimals alongside.
 
-use super::build::{Role, SalcSet};
+use super::build::{Role, Salc, SalcSet};
 use super::coords::Matching;
 use super::display::{coefficient_strings, combination, member_name, norm_factor, salc_text};
 use super::project::Worked;
 use crate::exact::{Cyclo, Notation};
 use crate::group::display_label;
 use crate::report::Format;
+use rayon::prelude::*;
 use serde_json::{json, Value};
 
 /// What a rendering needs besides the SALCs.
@@ -121,7 +122,13 @@ fn text(v: &View, nt: Notation, md: bool) -> String {
             }
         }
         out += "\n";
-        for s in set.salcs.iter().filter(|s| s.irrep == x) {
+        let lines: Vec<(&Salc, String)> = set
+            .salcs
+            .par_iter()
+            .filter(|s| s.irrep == x)
+            .map(|s| (s, salc_text(s, &set.members, nt)))
+            .collect();
+        for (s, line) in lines {
             let tag = role_name(s.role);
             let tag = if tag.is_empty() {
                 String::new()
@@ -133,7 +140,6 @@ fn text(v: &View, nt: Notation, md: bool) -> String {
             } else {
                 String::new()
             };
-            let line = salc_text(s, &set.members, nt);
             if md {
                 out += &format!("- {which}`{line}`{tag}\n");
             } else {
@@ -302,10 +308,14 @@ fn to_json(v: &View) -> Value {
             o
         })
         .collect();
-    let salcs: Vec<Value> = set
+    // the exact strings of thousands of coefficients are the slow part: SALCs side by side
+    let shown: Vec<&Salc> = set
         .salcs
         .iter()
         .filter(|s| v.only.is_none_or(|o| o == s.irrep))
+        .collect();
+    let salcs: Vec<Value> = shown
+        .par_iter()
         .map(|s| {
             let mut o = json!({
                 "irrep": s.label,
