@@ -113,8 +113,8 @@ impl<I: KInt> FastBasis<I> {
         })
     }
 
-    /// R_op·v.
-    pub fn apply(&self, op: usize, v: &KVec<I>) -> Option<KVec<I>> {
+    /// R_op·v over the denominator (table denominator)·(v's), not brought to lowest terms.
+    fn apply_unreduced(&self, op: usize, v: &KVec<I>) -> Option<KVec<I>> {
         let phi = self.f.phi();
         let mut out = KVec::zero(self.dim, phi);
         for (m, col) in self.cols[op].iter().enumerate() {
@@ -131,7 +131,6 @@ impl<I: KInt> FastBasis<I> {
             }
         }
         out.den = self.table.den.mul(&v.den)?;
-        out.lowest_terms();
         Some(out)
     }
 }
@@ -281,15 +280,13 @@ pub(super) fn partners<I: KInt>(
         return Some(vec![s1.clone()]);
     }
     let phi = fb.f.phi();
+    // the images share one denominator (the table's times s₁'s): only the results are
+    // brought to lowest terms
     let images: Vec<KVec<I>> = ops
         .iter()
-        .map(|&o| fb.apply(o, s1))
+        .map(|&o| fb.apply_unreduced(o, s1))
         .collect::<Option<_>>()?;
-    // bring the images to one denominator
-    let mut den = I::from_i128(1);
-    for im in &images {
-        den = den.lcm(&im.den)?;
-    }
+    let den = fb.table.den.mul(&s1.den)?;
     let mut out = Vec::with_capacity(d);
     for i in 0..d {
         let mut v = KVec::zero(fb.dim, phi);
@@ -298,18 +295,11 @@ pub(super) fn partners<I: KInt>(
             if f.iter().all(I::is_zero) {
                 continue;
             }
-            let scale = den.div_exact(&img.den);
-            let mut fs = f.to_vec();
-            if !scale.is_one() {
-                for x in &mut fs {
-                    *x = x.mul(&scale)?;
-                }
-            }
             for (acc, x) in v.num.chunks_mut(phi).zip(img.num.chunks(phi)) {
                 if x.iter().all(I::is_zero) {
                     continue;
                 }
-                fb.f.mul_acc(acc, &fs, x)?;
+                fb.f.mul_acc(acc, f, x)?;
             }
         }
         v.den = minv.den.mul(&den)?;
