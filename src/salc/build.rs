@@ -104,6 +104,12 @@ pub enum SalcError {
          too large to finish in time (the group, Γ and the multiplicities are not affected)"
     )]
     Ceiling { irrep: String, seconds: f64 },
+    #[error(
+        "exact SALCs stopped at {irrep} with the process using {megabytes} MB: the basis or its \
+         exact numbers are too large to finish within memory (the group, Γ and the \
+         multiplicities are not affected)"
+    )]
+    MemoryCeiling { irrep: String, megabytes: u64 },
 }
 
 /// How long one exact SALC computation may run before it stops with [`SalcError::Ceiling`]:
@@ -116,6 +122,24 @@ pub const EXACT_CEILING: Duration = if cfg!(debug_assertions) {
     Duration::from_millis(1500)
 };
 
+/// The resident memory (whole process, MB) at which exact SALC work stops with
+/// [`SalcError::MemoryCeiling`]: every command must stay within 1 GB, and the irreps are
+/// computed side by side, each growing its numbers until it is stopped, so the bound is the
+/// process's, checked every few milliseconds (Linux: /proc/self/statm; elsewhere only the time
+/// ceiling applies). Unoptimized (debug) builds run the test suite, many computations in one
+/// process at once: there the bound is 8 GB, so that tests check the mathematics.
+pub const MEMORY_CEILING_MB: u64 = if cfg!(debug_assertions) { 8192 } else { 640 };
+
+/// Resident set size of this process in MB, where the system tells it.
+pub(crate) fn resident_mb() -> Option<u64> {
+    let statm = std::fs::read_to_string("/proc/self/statm").ok()?;
+    let pages: u64 = statm.split_whitespace().nth(1)?.parse().ok()?;
+    // SAFETY: sysconf only reads a system constant.
+    let page = unsafe { libc::sysconf(libc::_SC_PAGESIZE) };
+    let page = u64::try_from(page).ok().filter(|&p| p > 0)?;
+    Some(pages * page / (1024 * 1024))
+}
+
 static COMMAND_START: std::sync::OnceLock<Instant> = std::sync::OnceLock::new();
 
 /// Count the ceiling from this instant (a command-line run: its start) instead of from the
@@ -124,10 +148,12 @@ pub fn count_ceiling_from(t: Instant) {
     let _ = COMMAND_START.set(t);
 }
 
-/// The running clock of one SALC computation.
+/// The running clock (and memory watch) of one SALC computation.
 struct Ceiling {
     start: Instant,
     limit: Duration,
+    /// When memory was last looked at (µs since `start`).
+    memory_seen: std::sync::atomic::AtomicU64,
 }
 
 impl Ceiling {
@@ -135,14 +161,29 @@ impl Ceiling {
         Ceiling {
             start: COMMAND_START.get().copied().unwrap_or_else(Instant::now),
             limit: EXACT_CEILING,
+            memory_seen: std::sync::atomic::AtomicU64::new(0),
         }
     }
     fn check(&self, irrep: &str) -> Result<(), SalcError> {
-        if self.start.elapsed() > self.limit {
+        use std::sync::atomic::Ordering;
+        let elapsed = self.start.elapsed();
+        if elapsed > self.limit {
             return Err(SalcError::Ceiling {
                 irrep: irrep.to_string(),
                 seconds: self.limit.as_secs_f64(),
             });
+        }
+        // memory every 5 ms at most (reading it costs a system call)
+        let now = elapsed.as_micros() as u64;
+        let seen = self.memory_seen.load(Ordering::Relaxed);
+        if now.saturating_sub(seen) >= 5_000 {
+            self.memory_seen.store(now, Ordering::Relaxed);
+            if let Some(mb) = resident_mb().filter(|&mb| mb > MEMORY_CEILING_MB) {
+                return Err(SalcError::MemoryCeiling {
+                    irrep: irrep.to_string(),
+                    megabytes: mb,
+                });
+            }
         }
         Ok(())
     }
@@ -713,4 +754,23 @@ fn shown(v: Vec<Cyclo>, sign: i64, norm2: Option<Cyclo>) -> (Vec<Cyclo>, Cyclo) 
     };
     let w = if r.is_one() { v } else { scale_rational(v, &r) };
     (w, n2)
+}
+
+#[cfg(test)]
+mod tests {
+    /// The memory watch reads this process's resident size (Linux /proc/self/statm, field 2 =
+    /// resident pages, proc(5)): while 64 MB are held and written, it reports at least that.
+    #[test]
+    fn resident_memory_is_read() {
+        if !std::path::Path::new("/proc/self/statm").exists() {
+            return; // not Linux: only the time ceiling applies
+        }
+        let block = vec![1u8; 64 << 20];
+        let mb = super::resident_mb().expect("statm is readable");
+        assert!(std::hint::black_box(&block)
+            .iter()
+            .step_by(4096)
+            .all(|&b| b == 1));
+        assert!((64..1_000_000).contains(&mb), "{mb} MB");
+    }
 }

@@ -17,7 +17,7 @@ mod render;
 
 pub use build::{
     count_ceiling_from, display_form, real_multiplicities, salcs, salcs_on, salcs_with_presets,
-    Arithmetic, Preset, Role, Salc, SalcError, SalcSet, EXACT_CEILING,
+    Arithmetic, Preset, Role, Salc, SalcError, SalcSet, EXACT_CEILING, MEMORY_CEILING_MB,
 };
 pub use coords::{
     central_matches, exact_positions, internal_coordinates, nearby_fraction, symmetry_coordinates,
