@@ -259,6 +259,14 @@ pub fn salcs_on(
         x: usize,
         spec: Option<(FieldSpec, Arc<FastIrrep>)>,
     }
+    // (the partner recipes, built once per process, first side by side)
+    irreps
+        .par_iter()
+        .enumerate()
+        .filter(|(x, _)| mult[*x] > 0)
+        .for_each(|(_, ir)| {
+            PartnerRecipe::of(&b.group, ir);
+        });
     let mut plans: Vec<Plan> = Vec::new();
     for (x, ir) in irreps.iter().enumerate() {
         if mult[x] == 0 || only.is_some_and(|o| o != x) {

@@ -110,10 +110,13 @@ pub fn real_irreps(g: &PointGroup) -> Result<Arc<Vec<RealIrrep>>, IrrepError> {
     let rows: Vec<usize> = (0..g.table.irreps.len())
         .filter(|&i| !matches!(g.table.irreps[i].pair, Some(p) if p < i))
         .collect();
+    // (independent of one another: built side by side)
+    use rayon::prelude::*;
+    let own: Vec<Option<RealIrrep>> = rows.par_iter().map(|&i| build_own(g, i)).collect();
     let mut out: Vec<RealIrrep> = Vec::new();
     let mut rest = Vec::new();
-    for &i in &rows {
-        match build_own(g, i) {
+    for (&i, r) in rows.iter().zip(own) {
+        match r {
             Some(r) => out.push(r),
             None => rest.push(i),
         }
