@@ -357,6 +357,16 @@ fn extend_from_generators(g: &PointGroup, gens: &[usize], gen_mats: Vec<Matrix>)
     if let Some(m) = super::fast_mats::extend(g.order(), gens, &gen_mats, steps) {
         return m;
     }
+    extend_on_numbers(g, gens, gen_mats, steps)
+}
+
+/// [`extend_from_generators`] on exact numbers (the path when no small field applies).
+fn extend_on_numbers(
+    g: &PointGroup,
+    gens: &[usize],
+    gen_mats: Vec<Matrix>,
+    steps: &[(usize, usize, usize)],
+) -> Vec<Matrix> {
     let d = gen_mats[0].len();
     let identity: Matrix = (0..d)
         .map(|i| (0..d).map(|j| Cyclo::from_int((i == j) as i64)).collect())
@@ -400,6 +410,11 @@ fn invariant_form_from(mats: &[Matrix]) -> Matrix {
     if let Some(b) = super::fast_mats::invariant_form(mats) {
         return b;
     }
+    invariant_form_on_numbers(mats)
+}
+
+/// [`invariant_form_from`] on exact numbers.
+fn invariant_form_on_numbers(mats: &[Matrix]) -> Matrix {
     let d = mats[0].len();
     let mut b = vec![vec![Cyclo::zero(); d]; d];
     for a in mats {
@@ -617,4 +632,44 @@ fn irreducible_span(g: &PointGroup, v: &[Cyclo], dim: usize) -> (Vec<Matrix>, Ve
         })
         .collect();
     (mats, norms)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// The integer-form matrix products (`fast_mats`) give the same matrices as products of
+    /// exact numbers, for every irrep of every finite group in the tables: all operations from
+    /// the generators, and the invariant form Σ AᵀA.
+    // Reference: the crate's Cyclo arithmetic (differential testing, common practice).
+    #[test]
+    fn integer_products_agree_with_exact_numbers() {
+        let mut compared = 0;
+        for name in crate::group::names() {
+            let g = crate::group::load(name).unwrap();
+            if g.is_linear() {
+                continue;
+            }
+            let (gens, steps) = {
+                let gs = generation(&g);
+                (gs.0.clone(), gs.1.clone())
+            };
+            for ir in real_irreps(&g).unwrap().iter().filter(|ir| ir.dim > 1) {
+                let gen_mats: Vec<Matrix> = gens.iter().map(|&o| ir.mats[o].clone()).collect();
+                let exact = extend_on_numbers(&g, &gens, gen_mats.clone(), &steps);
+                let fast = super::super::fast_mats::extend(g.order(), &gens, &gen_mats, &steps)
+                    .expect("molecular irreps fit the integer form");
+                assert!(fast == exact, "{name} {}", ir.label);
+                assert!(exact == ir.mats, "{name} {}", ir.label);
+                let b = super::super::fast_mats::invariant_form(&ir.mats).expect("fits");
+                assert!(
+                    b == invariant_form_on_numbers(&ir.mats),
+                    "{name} {}",
+                    ir.label
+                );
+                compared += 1;
+            }
+        }
+        assert!(compared > 100, "{compared} irreps compared");
+    }
 }
