@@ -511,7 +511,7 @@ type Tuples = Vec<(Tuple, Option<Vec<Cyclo>>, Role)>;
 
 /// Partner tuples of one irrep on the integer-form engine: the same steps as [`partner_ones`]
 /// and [`PartnerRecipe::partners`], so the same vectors up to positive rational factors (which
-/// `tidy_tuple` removes). `Ok(None)` when a number outgrew the integers `I` (i128).
+/// `shown` removes). `Ok(None)` when a number outgrew the integers `I` (i128).
 fn fast_tuples<I: KInt>(
     job: &Job,
     fb: &FastBasis<I>,
