@@ -564,7 +564,7 @@ impl<I: KInt> KVec<I> {
 
 /// The integers vectors are made of: i128 with every step checked (`None` on overflow), or
 /// big integers (never `None`).
-pub trait KInt: Clone + std::fmt::Debug + PartialEq {
+pub trait KInt: Clone + std::fmt::Debug + PartialEq + Send + Sync {
     fn zero() -> Self;
     fn from_i128(x: i128) -> Self;
     fn is_zero(&self) -> bool;

@@ -595,25 +595,31 @@ fn fast_tuples<I: KInt>(
             expected: n,
         });
     }
-    let mut out = Vec::with_capacity(found.len());
-    for (s1, role) in found {
-        clock.check(&ir.label)?;
-        let Some(tuple) = super::fast::partners(fb, &recipe.ops, fi, &s1) else {
-            return Ok(None);
-        };
-        // the partners' lengths² come cheaply here, in the field
-        let mut norms = Vec::with_capacity(tuple.len());
-        for v in &tuple {
-            let Some((nn, nd)) = v.dot_in(v, f) else {
+    // the copies' partners are independent of one another: side by side
+    let tuples: Vec<Result<Option<(Tuple, Vec<Cyclo>)>, SalcError>> = found
+        .par_iter()
+        .map(|(s1, _)| {
+            clock.check(&ir.label)?;
+            let Some(tuple) = super::fast::partners(fb, &recipe.ops, fi, s1) else {
                 return Ok(None);
             };
-            norms.push(f.cyclo_of(&nn, &nd));
-        }
-        out.push((
-            tuple.iter().map(|v| v.to_cyclos(f)).collect(),
-            Some(norms),
-            role,
-        ));
+            // the partners' lengths² come cheaply here, in the field
+            let mut norms = Vec::with_capacity(tuple.len());
+            for v in &tuple {
+                let Some((nn, nd)) = v.dot_in(v, f) else {
+                    return Ok(None);
+                };
+                norms.push(f.cyclo_of(&nn, &nd));
+            }
+            Ok(Some((tuple.iter().map(|v| v.to_cyclos(f)).collect(), norms)))
+        })
+        .collect();
+    let mut out = Vec::with_capacity(found.len());
+    for ((_, role), t) in found.iter().zip(tuples) {
+        let Some((tuple, norms)) = t? else {
+            return Ok(None);
+        };
+        out.push((tuple, Some(norms), *role));
     }
     Ok(Some(out))
 }
