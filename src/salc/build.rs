@@ -596,7 +596,8 @@ fn fast_tuples<I: KInt>(
         });
     }
     // the copies' partners are independent of one another: side by side
-    let tuples: Vec<Result<Option<(Tuple, Vec<Cyclo>)>, SalcError>> = found
+    type Done = Result<Option<(Tuple, Vec<Cyclo>)>, SalcError>;
+    let tuples: Vec<Done> = found
         .par_iter()
         .map(|(s1, _)| {
             clock.check(&ir.label)?;
@@ -611,7 +612,10 @@ fn fast_tuples<I: KInt>(
                 };
                 norms.push(f.cyclo_of(&nn, &nd));
             }
-            Ok(Some((tuple.iter().map(|v| v.to_cyclos(f)).collect(), norms)))
+            Ok(Some((
+                tuple.iter().map(|v| v.to_cyclos(f)).collect(),
+                norms,
+            )))
         })
         .collect();
     let mut out = Vec::with_capacity(found.len());
