@@ -167,6 +167,16 @@ impl Span {
         Some(Span { cols, rows, inv })
     }
 
+    /// The k coordinates that determine a vector of the span.
+    pub fn rows(&self) -> &[usize] {
+        &self.rows
+    }
+
+    /// `inverse()[j][r]`: coordinate j = Σᵣ inverse()[j][r]·x[rows()[r]].
+    pub fn inverse(&self) -> &[Vec<Rat>] {
+        &self.inv
+    }
+
     /// Coordinates of x in the span, or `None` when x is not in it.
     pub fn coords(&self, x: &[Rat]) -> Option<Vec<Rat>> {
         let y: Vec<Rat> = self

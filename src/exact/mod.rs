@@ -24,7 +24,7 @@ pub use kvec::{KField, KInt, KTable, KVec};
 pub use linsolve::{solve as solve_rational, solve_field};
 pub use parse::{parse, parse_with_phi, ParseError};
 pub use print::{decimal, format_rational};
-pub use quickhash::QuickMap;
+pub use quickhash::{QuickMap, QuickSet};
 pub use sqrt::{rationalize, sqrt, sqrt_rational, SqrtError};
 pub use subfield::{candidates as field_candidates, FieldSpec};
 

@@ -7,6 +7,7 @@
 
 use super::cyclo::Cyclo;
 use super::sqrt::sqrt_rational;
+use super::subfield::{conductor, squarefree};
 use super::Notation;
 use num_bigint::BigInt;
 use num_integer::Integer;
@@ -131,26 +132,6 @@ fn cos_text(j: u32, n: u32, nt: Notation) -> String {
         format!("2cos({num_s})")
     } else {
         format!("2cos({num_s}/{den})")
-    }
-}
-
-fn squarefree(d: u32) -> bool {
-    let mut p = 2;
-    while p * p <= d {
-        if d % (p * p) == 0 {
-            return false;
-        }
-        p += 1;
-    }
-    d > 1
-}
-
-/// Conductor of Q(√d) for squarefree d > 1.
-fn conductor(d: u32) -> u32 {
-    if d % 4 == 1 {
-        d
-    } else {
-        4 * d
     }
 }
 

@@ -1,9 +1,10 @@
-//! A fast hasher for memo tables keyed by exact numbers: the multiply–rotate scheme of the
-//! Rust compiler's own hash maps (common practice for program-internal keys). The keys are
-//! numbers salcdesk computed, not text an adversary chooses, so SipHash's protection against
-//! collision flooding is not needed, and its cost showed up in profiles of large bases.
+//! A fast hasher for program-internal keys (memo tables keyed by exact numbers, bond and angle
+//! sets keyed by atom numbers): the multiply–rotate scheme popularised by Firefox's FxHash and
+//! used by the Rust compiler's own maps (common practice). The keys are values salcdesk
+//! computed, not text an adversary chooses, so SipHash's protection against collision flooding
+//! is not needed, and its cost showed up in profiles of large bases.
 
-use std::collections::HashMap;
+use std::collections::{HashMap, HashSet};
 use std::hash::{BuildHasherDefault, Hasher};
 
 const K: u64 = 0x51_7c_c1_b7_27_22_0a_95;
@@ -55,3 +56,5 @@ impl Hasher for QuickHasher {
 
 /// A hash map with [`QuickHasher`].
 pub type QuickMap<K, V> = HashMap<K, V, BuildHasherDefault<QuickHasher>>;
+/// A hash set with [`QuickHasher`].
+pub type QuickSet<K> = HashSet<K, BuildHasherDefault<QuickHasher>>;

@@ -14,13 +14,14 @@
 
 use super::cyclo::Cyclo;
 use super::kvec::KInt;
-use super::linsolve::solve;
+use super::linsolve::{solve, Span};
 use super::poly::totient;
+use super::rat::Rat;
 use super::sqrt::sqrt_rational;
 use num_bigint::BigInt;
 use num_integer::Integer;
 use num_rational::BigRational;
-use num_traits::{One, ToPrimitive, Zero};
+use num_traits::{One, ToPrimitive};
 
 /// Which field a [`super::KField`] is.
 #[derive(Debug, Clone, PartialEq, Eq, Hash)]
@@ -63,8 +64,9 @@ pub fn candidates(n: u32) -> Vec<FieldSpec> {
     out
 }
 
-/// Conductor of Q(√d) for squarefree d > 1 (d ≡ 1 mod 4: d, else 4d).
-fn conductor(d: u32) -> u32 {
+/// Conductor of Q(√d) for squarefree d > 1 (d ≡ 1 mod 4: d, else 4d): the smallest n with
+/// √d ∈ Q(ζₙ).
+pub(super) fn conductor(d: u32) -> u32 {
     if d % 4 == 1 {
         d
     } else {
@@ -72,7 +74,8 @@ fn conductor(d: u32) -> u32 {
     }
 }
 
-fn squarefree(d: u32) -> bool {
+/// Is d > 1 free of square factors?
+pub(super) fn squarefree(d: u32) -> bool {
     let mut p = 2;
     while p * p <= d {
         if d % (p * p) == 0 {
@@ -177,49 +180,26 @@ impl Embedding {
             }
             powers.push(next);
         };
-        let deg = powers.len();
         let cols: Vec<Vec<BigRational>> = powers.iter().map(lifted).collect();
-        // k rows of the φ × k matrix [η⁰ … η^(k−1)] that are independent
-        let mut rows: Vec<usize> = Vec::new();
-        for r in 0..phi {
-            if rows.len() == deg {
-                break;
-            }
-            let row =
-                |r: usize| -> Vec<BigRational> { cols.iter().map(|c| c[r].clone()).collect() };
-            let chosen: Vec<Vec<BigRational>> = rows.iter().map(|&q| row(q)).collect();
-            let mine = row(r);
-            if mine.iter().all(Zero::is_zero) {
-                continue;
-            }
-            if chosen.is_empty() || solve(&chosen, &mine).is_none() {
-                rows.push(r);
-            }
-        }
-        if rows.len() != deg {
-            return None;
-        }
-        // S = the chosen rows (k × k); column j of S⁻¹ solves S·y = e_j
-        let s_cols: Vec<Vec<BigRational>> = (0..deg)
-            .map(|j| rows.iter().map(|&r| cols[j][r].clone()).collect())
-            .collect();
-        let inv_cols: Vec<Vec<BigRational>> = (0..deg)
-            .map(|j| {
-                let e: Vec<BigRational> = (0..deg)
-                    .map(|i| BigRational::from_integer(BigInt::from((i == j) as i64)))
-                    .collect();
-                solve(&s_cols, &e)
-            })
-            .collect::<Option<_>>()?;
+        // k independent rows of the φ × k matrix [η⁰ … η^(k−1)] and their inverse, over one
+        // integer denominator
+        let span = Span::new(
+            cols.iter()
+                .map(|c| c.iter().cloned().map(Rat::from_big).collect())
+                .collect(),
+        )?;
+        let rows = span.rows().to_vec();
         let mut den = BigInt::one();
-        for q in inv_cols.iter().flatten() {
-            den = Integer::lcm(&den, q.denom());
+        for q in span.inverse().iter().flatten() {
+            den = Integer::lcm(&den, q.to_big().denom());
         }
-        let inv: Vec<Vec<i128>> = (0..deg)
-            .map(|j| {
-                (0..deg)
-                    .map(|r| {
-                        (&inv_cols[r][j] * BigRational::from_integer(den.clone()))
+        let inv: Vec<Vec<i128>> = span
+            .inverse()
+            .iter()
+            .map(|row| {
+                row.iter()
+                    .map(|q| {
+                        (q.to_big() * BigRational::from_integer(den.clone()))
                             .to_integer()
                             .to_i128()
                     })

@@ -1,7 +1,7 @@
 //! Bond and angle sets: orbits of bonds and bond angles under the atom permutations, and how
 //! many members each class leaves in place.
 
-use super::fx::FxMap;
+use crate::exact::QuickMap;
 
 /// A set of symmetry-equivalent bonds.
 #[derive(Debug, Clone, PartialEq, Eq)]
@@ -34,7 +34,7 @@ fn orbits<T: Copy + Eq + std::hash::Hash + Ord>(
     image: impl Fn(&[usize], T) -> T,
     perms: &[Vec<usize>],
 ) -> Vec<Vec<T>> {
-    let index: FxMap<T, usize> = items.iter().enumerate().map(|(k, t)| (*t, k)).collect();
+    let index: QuickMap<T, usize> = items.iter().enumerate().map(|(k, t)| (*t, k)).collect();
     let mut parent: Vec<usize> = (0..items.len()).collect();
     fn find(p: &mut [usize], x: usize) -> usize {
         let mut r = x;
@@ -59,7 +59,7 @@ fn orbits<T: Copy + Eq + std::hash::Hash + Ord>(
             }
         }
     }
-    let mut groups: FxMap<usize, Vec<T>> = FxMap::default();
+    let mut groups: QuickMap<usize, Vec<T>> = QuickMap::default();
     for (k, t) in items.iter().enumerate() {
         let r = find(&mut parent, k);
         groups.entry(r).or_default().push(*t);
@@ -103,7 +103,7 @@ pub fn angle_sets(
     symbol: impl Fn(usize) -> String,
     linear_cutoff_deg: f64,
 ) -> (Vec<AngleSet>, usize) {
-    let mut nbrs: FxMap<usize, Vec<usize>> = FxMap::default();
+    let mut nbrs: QuickMap<usize, Vec<usize>> = QuickMap::default();
     for &(a, b) in bonds {
         nbrs.entry(a).or_default().push(b);
         nbrs.entry(b).or_default().push(a);

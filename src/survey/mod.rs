@@ -7,7 +7,6 @@
 //! unmoved counts (Cotton, 3rd ed., §10.2–10.3), so everything exact stays exact. Linear
 //! molecules are worked in C2v/D2h and correlated back (see `rep::linear`).
 
-mod fx;
 mod internal;
 mod run;
 

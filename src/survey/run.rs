@@ -87,7 +87,7 @@ fn check_bonds_symmetric(
     w: &PointGroup,
     permutations: &[(usize, &Vec<usize>)],
 ) -> Result<(), SurveyError> {
-    let set: super::fx::FxSet<(usize, usize)> =
+    let set: crate::exact::QuickSet<(usize, usize)> =
         bonds.iter().map(|&(a, b)| (a.min(b), a.max(b))).collect();
     for &(a, b) in bonds {
         if a >= n_atoms || b >= n_atoms {
