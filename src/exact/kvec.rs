@@ -23,7 +23,6 @@ use std::sync::{Arc, Mutex, OnceLock};
 /// polynomial for j = 0 … k−2.
 #[derive(Debug)]
 pub struct KField {
-    spec: FieldSpec,
     /// Order of the cyclotomic field the numbers are stored in.
     n: u32,
     /// Degree of this field (φ(n) for Q(ζₙ)).
@@ -54,13 +53,13 @@ impl KField {
         let f = match spec {
             FieldSpec::Cyclotomic(n) => {
                 let poly: Vec<i128> = cyclotomic(*n).iter().map(|&p| p as i128).collect();
-                Self::build(spec.clone(), &poly, None)
+                Self::build(spec.home(), &poly, None)
             }
             _ => {
                 let home = Self::get(spec.home());
                 Embedding::new(spec).and_then(|e| {
                     let poly = e.poly.clone();
-                    Self::build(spec.clone(), &poly, Some((home, e)))
+                    Self::build(spec.home(), &poly, Some((home, e)))
                 })
             }
         }
@@ -71,12 +70,9 @@ impl KField {
         f
     }
 
-    /// The field with monic minimal polynomial `poly` (lowest coefficient first).
-    fn build(
-        spec: FieldSpec,
-        poly: &[i128],
-        emb: Option<(Arc<KField>, Embedding)>,
-    ) -> Option<KField> {
+    /// The field with monic minimal polynomial `poly` (lowest coefficient first), its numbers
+    /// stored in Q(ζₙ).
+    fn build(n: u32, poly: &[i128], emb: Option<(Arc<KField>, Embedding)>) -> Option<KField> {
         let phi = poly.len() - 1;
         let mut high = Vec::new();
         if phi > 1 {
@@ -96,17 +92,12 @@ impl KField {
             }
         }
         Some(KField {
-            n: spec.home().max(1),
-            spec,
+            n: n.max(1),
             phi,
             high,
             emb,
             lifts: Mutex::new(HashMap::new()),
         })
-    }
-
-    pub fn spec(&self) -> &FieldSpec {
-        &self.spec
     }
 
     pub fn n(&self) -> u32 {

@@ -13,7 +13,7 @@ use std::collections::HashMap;
 use std::sync::{Arc, Mutex, OnceLock};
 
 /// Largest field degree φ(n) worth the integer form (every molecular table is far below).
-const MAX_PHI: usize = 24;
+pub(super) const MAX_PHI: usize = 24;
 
 /// Distinct numbers per operation looked up without hashing.
 const RECENT: usize = 12;
@@ -57,10 +57,7 @@ impl<'a> Images<'a> {
                                 if let Some(&(_, i)) = recent.iter().find(|(x, _)| x.same_form(c)) {
                                     return (*k, i);
                                 }
-                                let i = *seen.entry(c.key()).or_insert_with(|| {
-                                    entries.push(c);
-                                    entries.len() - 1
-                                });
+                                let i = distinct_index(&mut seen, &mut entries, c);
                                 if recent.len() < RECENT {
                                     recent.push((c, i));
                                 }
@@ -77,6 +74,18 @@ impl<'a> Images<'a> {
             dim: b.dim(),
         }
     }
+}
+
+/// The index of `c` among the distinct numbers `entries` (added when new).
+fn distinct_index<'a>(
+    seen: &mut QuickMap<CycloKey, usize>,
+    entries: &mut Vec<&'a Cyclo>,
+    c: &'a Cyclo,
+) -> usize {
+    *seen.entry(c.key()).or_insert_with(|| {
+        entries.push(c);
+        entries.len() - 1
+    })
 }
 
 /// The smallest storage field holding every number (lcm of the fields), if small enough.
@@ -178,12 +187,7 @@ impl<I: KInt> FastIrrep<I> {
             .iter()
             .flatten()
             .flatten()
-            .map(|c| {
-                *seen.entry(c.key()).or_insert_with(|| {
-                    entries.push(c);
-                    entries.len() - 1
-                })
-            })
+            .map(|c| distinct_index(&mut seen, &mut entries, c))
             .collect();
         let distinct = KTable::from_cyclos(f, entries.into_iter())?;
         let phi = f.phi();

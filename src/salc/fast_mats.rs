@@ -5,35 +5,25 @@
 //! denominator; `None` (a number outside every small field, or 128-bit overflow) sends the
 //! caller to its [`Cyclo`] path, which gives the same numbers.
 
-use super::fast::common_field;
+use super::fast::{common_field, MAX_PHI};
 use super::irreps::Matrix;
 use crate::exact::{field_candidates, Cyclo, KField, KInt, KTable, KVec};
 use std::sync::Arc;
 
 /// One d×d matrix over a field: entry (i, j) at (i·d + j)·k, over `den`.
-#[derive(Clone)]
-struct KMat {
-    num: Vec<i128>,
-    den: i128,
-}
+type KMat = KTable<i128>;
 
 /// The first candidate field holding every number, with the numbers converted.
 fn field_for(mats: &[&Matrix]) -> Option<(Arc<KField>, Vec<KMat>)> {
     let n = common_field(mats.iter().flat_map(|m| m.iter().flatten()))?;
     for spec in field_candidates(n) {
         let Some(f) = KField::of(&spec) else { continue };
-        if f.phi() > 24 {
+        if f.phi() > MAX_PHI {
             return None;
         }
         let conv: Option<Vec<KMat>> = mats
             .iter()
-            .map(|m| {
-                let t: KTable<i128> = KTable::from_cyclos(&f, m.iter().flatten())?;
-                Some(KMat {
-                    num: t.num,
-                    den: t.den,
-                })
-            })
+            .map(|m| KTable::from_cyclos(&f, m.iter().flatten()))
             .collect();
         if let Some(c) = conv {
             return Some((f, c));
