@@ -577,28 +577,13 @@ impl Cyclo {
         }
         // Coordinates in the power basis of Q(ζₘ) lifted to Q(ζₙ) (independent), prepared once
         // per (n, m); membership is decided exactly by the same solve.
-        use super::linsolve::Span;
-        use std::collections::HashMap;
-        use std::sync::{Arc, Mutex, OnceLock};
-        type Cache = Mutex<HashMap<(u32, u32), Option<Arc<Span>>>>;
-        static C: OnceLock<Cache> = OnceLock::new();
-        let cache = C.get_or_init(|| Mutex::new(HashMap::new()));
-        let cached = cache.lock().expect("span cache").get(&(self.n, m)).cloned();
-        let span = match cached {
-            Some(s) => s,
-            None => {
-                let basis: Vec<Vec<Rat>> = (0..totient(m))
-                    .map(|k| Cyclo::zeta(m, k as i64).lift_rat(self.n))
-                    .map(|c| c.to_vec())
-                    .collect();
-                let s = Span::new(basis).map(Arc::new);
-                cache
-                    .lock()
-                    .expect("span cache")
-                    .insert((self.n, m), s.clone());
-                s
-            }
-        }?;
+        let span = super::linsolve::Span::cached(("power basis", self.n, vec![m]), || {
+            Some(
+                (0..totient(m))
+                    .map(|k| Cyclo::zeta(m, k as i64).lift_rat(self.n).to_vec())
+                    .collect(),
+            )
+        })?;
         let sol = span.coords(&self.coeffs)?;
         let mut c = Cyclo {
             n: m,

@@ -127,7 +127,29 @@ pub(super) struct Span {
     inv: Vec<Vec<Rat>>,
 }
 
+/// Names a prepared [`Span`]: what kind of basis, its field, its parameters.
+type SpanKey = (&'static str, u32, Vec<u32>);
+
 impl Span {
+    /// The span named by `key`, prepared once per process from the vectors `build` gives
+    /// (`None`: they could not be built, or are dependent).
+    pub fn cached(
+        key: SpanKey,
+        build: impl FnOnce() -> Option<Vec<Vec<Rat>>>,
+    ) -> Option<std::sync::Arc<Span>> {
+        use std::collections::HashMap;
+        use std::sync::{Arc, Mutex, OnceLock};
+        type Cache = Mutex<HashMap<SpanKey, Option<Arc<Span>>>>;
+        static C: OnceLock<Cache> = OnceLock::new();
+        let cache = C.get_or_init(|| Mutex::new(HashMap::new()));
+        if let Some(s) = cache.lock().expect("span cache").get(&key) {
+            return s.clone();
+        }
+        let s = build().and_then(Span::new).map(Arc::new);
+        cache.lock().expect("span cache").insert(key, s.clone());
+        s
+    }
+
     /// `None` when the vectors are dependent.
     pub fn new(cols: Vec<Vec<Rat>>) -> Option<Span> {
         let k = cols.len();

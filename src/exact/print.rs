@@ -202,29 +202,15 @@ fn cached_root(d: u32) -> Option<Cyclo> {
 /// Rational coordinates of x in the given (independent) basis, if x lies in its span. `tag`
 /// names the basis (the same tag, the same basis): each basis is prepared once per field.
 fn coords(x: &Cyclo, tag: &[u32], basis: &[Cyclo]) -> Option<Vec<BigRational>> {
-    use super::linsolve::Span;
-    use std::collections::HashMap;
-    use std::sync::{Arc, Mutex, OnceLock};
-    type Cache = Mutex<HashMap<(u32, Vec<u32>), Option<Arc<Span>>>>;
-    static C: OnceLock<Cache> = OnceLock::new();
     let m = basis
         .iter()
         .fold(x.field_order(), |m, b| super::poly::lcm(m, b.field_order()));
-    let cache = C.get_or_init(|| Mutex::new(HashMap::new()));
-    let key = (m, tag.to_vec());
-    let cached = cache.lock().expect("span cache").get(&key).cloned();
-    let span = match cached {
-        Some(s) => s,
-        None => {
-            let cols = basis
-                .iter()
-                .map(|b| b.coeffs_in(m).map(|c| c.to_vec()))
-                .collect::<Option<Vec<_>>>()?;
-            let s = Span::new(cols).map(Arc::new);
-            cache.lock().expect("span cache").insert(key, s.clone());
-            s
-        }
-    }?;
+    let span = super::linsolve::Span::cached(("print", m, tag.to_vec()), || {
+        basis
+            .iter()
+            .map(|b| b.coeffs_in(m).map(|c| c.to_vec()))
+            .collect()
+    })?;
     let y = span.coords(&x.coeffs_in(m)?)?;
     Some(y.iter().map(|r| r.to_big()).collect())
 }

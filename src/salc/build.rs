@@ -235,9 +235,7 @@ pub fn salcs_on(
     let inv = inverses(b);
     let reps: Vec<usize> = b.site_orbits().iter().map(|o| o[0]).collect();
     let clock = Ceiling::new();
-    // the integer-form engine, per irrep over a field holding the basis images, the irrep's
-    // matrices and the presets: first their storage field Q(ζₙ) (Q(ζ₅) for most Ih irreps,
-    // Q(ζ₆₀) where √3 enters too), then the smallest subfield of it that holds them all
+    // the storage field Q(ζₙ) of the basis images and presets; per irrep, with its matrices
     let base_field = (arithmetic != Arithmetic::General)
         .then_some(())
         .and_then(|()| {
