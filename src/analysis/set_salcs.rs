@@ -298,7 +298,11 @@ fn basis_of(st: &Structure, set: &MemberSet) -> Result<Basis, String> {
                 .collect();
             let images = site_perm
                 .iter()
-                .map(|p| p.iter().map(|&k| vec![(k, Cyclo::one())]).collect())
+                .map(|p| {
+                    p.iter()
+                        .map(|&k| smallvec::smallvec![(k, Cyclo::one())])
+                        .collect()
+                })
                 .collect();
             Ok(Basis {
                 kind: BasisKind::Sigma,

@@ -11,8 +11,9 @@ use crate::group::PointGroup;
 use crate::rep::{self, Character};
 use std::sync::Arc;
 
-/// The image of one member: a sparse combination `Σ coefficient · member`.
-pub type Column = Vec<(usize, Cyclo)>;
+/// The image of one member: a sparse combination `Σ coefficient · member` (one term held
+/// inline: permutation bases, the usual case, then need no allocation per image).
+pub type Column = smallvec::SmallVec<[(usize, Cyclo); 1]>;
 
 /// What a basis is made of.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]

@@ -73,7 +73,11 @@ fn scalar_basis(
 ) -> Basis {
     let images = site_perm
         .iter()
-        .map(|p| p.iter().map(|&k| vec![(k, Cyclo::one())]).collect())
+        .map(|p| {
+            p.iter()
+                .map(|&k| smallvec::smallvec![(k, Cyclo::one())])
+                .collect()
+        })
         .collect();
     Basis {
         kind,

@@ -91,7 +91,11 @@ pub fn sigma(s: &Structure, centre: usize, ligands: &[usize]) -> Result<Basis, B
         .collect();
     let images = site_perm
         .iter()
-        .map(|p| p.iter().map(|&k| vec![(k, Cyclo::one())]).collect())
+        .map(|p| {
+            p.iter()
+                .map(|&k| smallvec::smallvec![(k, Cyclo::one())])
+                .collect()
+        })
         .collect();
     Ok(Basis {
         kind: BasisKind::Sigma,

@@ -61,7 +61,7 @@ pub fn p_perp(s: &Structure, atoms: &[usize]) -> Result<Basis, BasisError> {
                     image: s.label(img),
                 })?;
             row.push(k);
-            cols.push(vec![(k, eps.clone())]);
+            cols.push(smallvec::smallvec![(k, eps.clone())]);
         }
         site_perm.push(row);
         images.push(cols);

@@ -11,7 +11,7 @@
 
 use super::cyclo::Cyclo;
 use super::poly::{cyclotomic, from_integer_form, totient};
-use super::rat::gcd_u128;
+use super::rat::{gcd_u128, gcd_u64};
 use super::subfield::{solve_fraction_free, Embedding, FieldSpec};
 use num_bigint::BigInt;
 use num_rational::BigRational;
@@ -281,6 +281,36 @@ impl KField {
                     .expect("big integers do not overflow");
                 BigInt::cyc_cyclo(home, &x, &den.to_big())
             }
+        }
+    }
+
+    /// The order n of the Q(ζₙ) this field's numbers are stored in as [`Cyclo`]s.
+    pub fn home_order(&self) -> u32 {
+        self.n
+    }
+
+    /// The degree of that Q(ζₙ).
+    pub fn home_degree(&self) -> usize {
+        self.emb.as_ref().map_or(self.phi, |(home, _)| home.phi)
+    }
+
+    /// The numerators of nums/den in the power basis of Q(ζₙ) (same denominator), written to
+    /// `out` ([`Self::home_degree`] long); `None` on overflow.
+    pub fn home_nums<I: KInt>(&self, nums: &[I], out: &mut [I]) -> Option<()> {
+        match &self.emb {
+            None => {
+                out.clone_from_slice(nums);
+                Some(())
+            }
+            Some((_, e)) => e.expand(nums, out),
+        }
+    }
+
+    /// The number nums/den of Q(ζₙ) given by its numerators there ([`Self::home_nums`]).
+    pub fn home_cyclo<I: KInt>(&self, nums: &[I], den: &I) -> Cyclo {
+        match &self.emb {
+            None => I::cyc_cyclo(self, nums, den),
+            Some((home, _)) => I::cyc_cyclo(home, nums, den),
         }
     }
 
@@ -608,11 +638,22 @@ impl KInt for i128 {
     fn mul(&self, o: &Self) -> Option<Self> {
         self.checked_mul(*o)
     }
+    #[inline]
     fn gcd(&self, o: &Self) -> Self {
-        gcd_u128(self.unsigned_abs(), o.unsigned_abs()) as i128
+        let (a, b) = (self.unsigned_abs(), o.unsigned_abs());
+        // both below 2⁶⁴ (the usual case): the 64-bit gcd is about twice as fast
+        if (a | b) >> 64 == 0 {
+            return gcd_u64(a as u64, b as u64) as i128;
+        }
+        gcd_u128(a, b) as i128
     }
+    #[inline]
     fn div_exact(&self, o: &Self) -> Self {
-        self / o
+        // 128-bit division is a library call; 64-bit is one instruction
+        match (i64::try_from(*self), i64::try_from(*o)) {
+            (Ok(a), Ok(b)) if b != -1 => (a / b) as i128,
+            _ => self / o,
+        }
     }
     #[inline]
     fn mul_acc(f: &KField, acc: &mut [Self], a: &[Self], b: &[Self]) -> Option<()> {

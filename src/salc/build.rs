@@ -11,7 +11,7 @@ use super::fast::{common_field, field_lcm, FastBasis, FastIrrep, Images};
 use super::irreps::{real_irreps, IrrepError, Matrix, RealIrrep};
 use super::project::{inverses, partner_one_images, transfer};
 use crate::basis::{Basis, Member};
-use crate::exact::{field_candidates, solve_field, Cyclo, FieldSpec, KInt, KVec};
+use crate::exact::{field_candidates, solve_field, Cyclo, FieldSpec, KField, KInt, KVec};
 use crate::group::PointGroup;
 use num_bigint::BigInt;
 use num_rational::BigRational;
@@ -346,17 +346,17 @@ pub fn salcs_on(
                 let mut t = Vec::with_capacity(firsts.len());
                 for (s1, role) in firsts {
                     clock.check(&ir.label)?;
-                    t.push((recipe.partners(b, s1), None, role));
+                    let tuple = recipe.partners(b, s1);
+                    let sign = tuple_sign(&tuple);
+                    let shown: Shown = tuple.into_iter().map(|v| shown(v, sign, None)).collect();
+                    t.push((shown, role));
                 }
                 t
             }
         };
         let mut out = Vec::new();
-        for (c, (tuple, norms, role)) in tuples.into_iter().enumerate() {
-            let sign = tuple_sign(&tuple);
-            for (p, v) in tuple.into_iter().enumerate() {
-                let hint = norms.as_ref().map(|n| n[p].clone());
-                let (coefficients, norm2) = shown(v, sign, hint);
+        for (c, (tuple, role)) in tuples.into_iter().enumerate() {
+            for (p, (coefficients, norm2)) in tuple.into_iter().enumerate() {
                 out.push(Salc {
                     irrep: x,
                     label: ir.label.clone(),
@@ -501,11 +501,11 @@ fn partner_ones(job: &Job) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
     Ok(found)
 }
 
-/// The d partners of one SALC.
-type Tuple = Vec<Vec<Cyclo>>;
-
 /// The partner tuples of an irrep: partners, their lengths² when known, role.
-type Tuples = Vec<(Tuple, Option<Vec<Cyclo>>, Role)>;
+type Tuples = Vec<(Shown, Role)>;
+
+/// One SALC's partners in their shown form, each with its length².
+type Shown = Vec<(Vec<Cyclo>, Cyclo)>;
 
 /// Partner tuples of one irrep on the integer-form engine: the same steps as [`partner_ones`]
 /// and [`PartnerRecipe::partners`], so the same vectors up to positive rational factors (which
@@ -594,7 +594,7 @@ fn fast_tuples<I: KInt>(
         });
     }
     // the copies' partners are independent of one another: side by side
-    type Done = Result<Option<(Tuple, Vec<Cyclo>)>, SalcError>;
+    type Done = Result<Option<Shown>, SalcError>;
     let tuples: Vec<Done> = found
         .par_iter()
         .map(|(s1, _)| {
@@ -602,28 +602,131 @@ fn fast_tuples<I: KInt>(
             let Some(tuple) = super::fast::partners(fb, &recipe.ops, fi, s1) else {
                 return Ok(None);
             };
+            // the sign that makes the first partner start positive (as `tuple_sign`)
+            let sign = tuple
+                .first()
+                .and_then(|v| {
+                    v.num
+                        .chunks(f.phi())
+                        .find(|c| c.iter().any(|t| !t.is_zero()))
+                })
+                .map_or(1, |c| {
+                    if f.cyclo_of(c, &I::from_i128(1)).signum_real() < 0 {
+                        -1
+                    } else {
+                        1
+                    }
+                });
             // the partners' lengths² come cheaply here, in the field
-            let mut norms = Vec::with_capacity(tuple.len());
+            let mut shown_tuple = Vec::with_capacity(tuple.len());
             for v in &tuple {
                 let Some((nn, nd)) = v.dot_in(v, f) else {
                     return Ok(None);
                 };
-                norms.push(f.cyclo_of(&nn, &nd));
+                match shown_in_field(v, f, sign, (&nn, &nd)) {
+                    Some(done) => shown_tuple.push(done),
+                    None => {
+                        shown_tuple.push(shown(v.to_cyclos(f), sign, Some(f.cyclo_of(&nn, &nd))))
+                    }
+                }
             }
-            Ok(Some((
-                tuple.iter().map(|v| v.to_cyclos(f)).collect(),
-                norms,
-            )))
+            Ok(Some(shown_tuple))
         })
         .collect();
     let mut out = Vec::with_capacity(found.len());
     for ((_, role), t) in found.iter().zip(tuples) {
-        let Some((tuple, norms)) = t? else {
+        let Some(shown) = t? else {
             return Ok(None);
         };
-        out.push((tuple, Some(norms), *role));
+        out.push((shown, *role));
     }
     Ok(Some(out))
+}
+
+/// [`shown`] of sign·v for a vector of the field `f`, worked on its integer numerators in the
+/// power basis of the storage field Q(ζₙ): there the exact numbers' coefficients are those
+/// numerators over v's denominator, so the primitive factor is den/g (g their gcd) and the shown
+/// coefficients are ±numerators/g, with no rational arithmetic per coefficient. Same result as
+/// [`shown`]; `None` where that must decide (storage n ≡ 2 mod 4 is renormalized; overflow).
+fn shown_in_field<I: KInt>(
+    v: &KVec<I>,
+    f: &KField,
+    sign: i64,
+    len2: (&[I], &I),
+) -> Option<(Vec<Cyclo>, Cyclo)> {
+    if f.home_order() % 4 == 2 {
+        return None;
+    }
+    let (k, hk) = (f.phi(), f.home_degree());
+    let len = v.num.len() / k;
+    let mut x = vec![I::zero(); len * hk];
+    for (src, dst) in v.num.chunks(k).zip(x.chunks_mut(hk)) {
+        if src.iter().any(|t| !t.is_zero()) {
+            f.home_nums(src, dst)?;
+        }
+    }
+    let nonzero = |c: &[I]| c.iter().any(|t| !t.is_zero());
+    let Some(xf) = x.chunks(hk).find(|c| nonzero(c)) else {
+        return Some((vec![Cyclo::zero(); len], Cyclo::zero()));
+    };
+    let piv = xf.iter().position(|t| !t.is_zero())?;
+    // all entries rational multiples of the first nonzero one: xᵢ·x_f[p] = x_f·xᵢ[p]
+    let mut proportional = true;
+    'scan: for c in x.chunks(hk) {
+        for (a, b) in c.iter().zip(xf) {
+            if a.mul(&xf[piv])? != b.mul(&c[piv])? {
+                proportional = false;
+                break 'scan;
+            }
+        }
+    }
+    let int_cyclo = |t: &I| -> Cyclo {
+        match t.to_big().try_into() {
+            Ok(small) => Cyclo::from_int(small),
+            Err(_) => Cyclo::from_rational(BigRational::from_integer(t.to_big())),
+        }
+    };
+    if proportional {
+        // a primitive integer vector along sign·v
+        let negative = (f.home_cyclo(xf, &v.den).signum_real() < 0) != (sign < 0);
+        let flip = xf[piv].is_negative() != negative;
+        let g = x
+            .chunks(hk)
+            .map(|c| &c[piv])
+            .filter(|t| !t.is_zero())
+            .fold(I::zero(), |g, t| g.gcd(t));
+        let mut n2 = I::zero();
+        let mut w = Vec::with_capacity(len);
+        for c in x.chunks(hk) {
+            let t = c[piv].div_exact(&g);
+            let t = if flip { I::zero().sub(&t)? } else { t };
+            n2 = n2.add(&t.mul(&t)?)?;
+            w.push(int_cyclo(&t));
+        }
+        return Some((w, int_cyclo(&n2)));
+    }
+    let g = x
+        .iter()
+        .filter(|t| !t.is_zero())
+        .fold(I::zero(), |g, t| g.gcd(t));
+    let one = I::from_i128(1);
+    let mut w = Vec::with_capacity(len);
+    let mut buf = vec![I::zero(); hk];
+    for c in x.chunks(hk) {
+        if !nonzero(c) {
+            w.push(Cyclo::zero());
+            continue;
+        }
+        for (b, t) in buf.iter_mut().zip(c) {
+            let q = t.div_exact(&g);
+            *b = if sign < 0 { I::zero().sub(&q)? } else { q };
+        }
+        w.push(f.home_cyclo(&buf, &one));
+    }
+    // lengths² scale by r² with r = den/g
+    let r = BigRational::new(v.den.to_big(), g.to_big());
+    let n2 = f.cyclo_of(len2.0, len2.1).scale(&(&r * &r));
+    Some((w, n2))
 }
 
 /// d operations whose first matrix columns are independent, and the inverse of that d×d
@@ -774,6 +877,65 @@ fn shown(v: Vec<Cyclo>, sign: i64, norm2: Option<Cyclo>) -> (Vec<Cyclo>, Cyclo) 
 
 #[cfg(test)]
 mod tests {
+    use super::{shown, shown_in_field};
+    use crate::exact::{field_candidates, KField, KVec};
+    use num_bigint::BigInt;
+    use proptest::prelude::*;
+
+    /// Every field the engine may pick: each candidate of these storage fields (Q(ζₙ), its
+    /// real subfield, the real root fields), n ≡ 2 (mod 4) excluded as storage.
+    fn specs() -> Vec<crate::exact::FieldSpec> {
+        [1u32, 3, 4, 5, 7, 8, 9, 12, 15, 16, 20, 24, 60]
+            .iter()
+            .flat_map(|&n| field_candidates(n))
+            .collect()
+    }
+
+    proptest! {
+        /// The shown form worked on integer numerators equals the one worked on exact numbers
+        /// (coefficients stored identically, same length²), for random vectors of every field,
+        /// both signs, and vectors whose entries are rational multiples of one another (the
+        /// primitive-integer branch). Reference: the crate's Cyclo path (differential testing,
+        /// common practice).
+        #[test]
+        fn shown_on_integers_matches_exact_numbers(
+            pick in 0usize..1000,
+            raw in proptest::collection::vec(proptest::collection::vec(-40i64..=40, 16), 1..7),
+            den in 1i64..=36,
+            ratios in proptest::collection::vec(-6i64..=6, 7),
+            proportional in any::<bool>(),
+            negative in any::<bool>(),
+        ) {
+            let all = specs();
+            let spec = &all[pick % all.len()];
+            let f = KField::of(spec).expect("small fields are built");
+            let k = f.phi();
+            let mut num = Vec::new();
+            for (i, entry) in raw.iter().enumerate() {
+                for j in 0..k {
+                    let x = if proportional { raw[0][j] * ratios[i] } else { entry[j] };
+                    num.push(x as i128);
+                }
+            }
+            let v = KVec { num, den: den as i128 };
+            let sign = if negative { -1 } else { 1 };
+            let (nn, nd) = v.dot_in(&v, &f).expect("small");
+            let fast = shown_in_field(&v, &f, sign, (&nn, &nd));
+            let big = KVec { num: v.num.iter().map(|&x| BigInt::from(x)).collect(), den: BigInt::from(v.den) };
+            let (bn, bd) = big.dot_in(&big, &f).expect("big integers do not overflow");
+            let fast_big = shown_in_field(&big, &f, sign, (&bn, &bd));
+            let general = shown(v.to_cyclos(&f), sign, Some(f.cyclo_of(&nn, &nd)));
+            for got in [fast, fast_big] {
+                let (w, n2) = got.expect("storage fields here are not 2 mod 4; small numbers");
+                prop_assert_eq!(w.len(), general.0.len());
+                for (a, b) in w.iter().zip(&general.0) {
+                    prop_assert!(a.same_form(b), "{} vs {}", a, b);
+                }
+                prop_assert!(n2 == general.1);
+            }
+        }
+    }
+
     /// The memory watch reads this process's resident size (Linux /proc/self/statm, field 2 =
     /// resident pages, proc(5)): while 64 MB are held and written, it reports at least that.
     #[test]

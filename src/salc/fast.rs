@@ -18,8 +18,32 @@ pub(super) const MAX_PHI: usize = 24;
 /// Distinct numbers per operation looked up without hashing.
 const RECENT: usize = 12;
 
-/// `[op][m]`: the (k, index of the number) pairs of R_op·e_m.
-type ImageIndex = Vec<Vec<Vec<(usize, usize)>>>;
+/// The (k, index of the number) pairs of R_op·e_m for every operation and member, held in one
+/// flat list (one allocation per basis, not one per image).
+pub(super) struct ImageIndex {
+    pairs: Vec<(usize, usize)>,
+    /// `start[op·dim + m]` … `start[op·dim + m + 1]`: the pairs of R_op·e_m.
+    start: Vec<usize>,
+    dim: usize,
+}
+
+impl ImageIndex {
+    /// The pairs of R_op·e_m.
+    #[inline]
+    fn col(&self, op: usize, m: usize) -> &[(usize, usize)] {
+        let at = op * self.dim + m;
+        &self.pairs[self.start[at]..self.start[at + 1]]
+    }
+
+    /// The images R_op·e_m of every member m, in order.
+    fn op(&self, op: usize) -> impl Iterator<Item = &[(usize, usize)]> {
+        (0..self.dim).map(move |m| self.col(op, m))
+    }
+
+    fn ops(&self) -> usize {
+        (self.start.len() - 1).checked_div(self.dim).unwrap_or(0)
+    }
+}
 
 /// A basis's operation images over one field: `cols[op][m]` lists (k, index into `table`).
 pub(super) struct FastBasis<I = i128> {
@@ -45,33 +69,33 @@ impl<'a> Images<'a> {
         // one operation's images hold few distinct numbers (a Cartesian basis: its 3×3 matrix
         // entries): those are looked up in a short list first, the map only when new
         let mut recent: Vec<(&Cyclo, usize)> = Vec::with_capacity(RECENT);
-        let cols = b
-            .images
-            .iter()
-            .map(|op| {
-                recent.clear();
-                op.iter()
-                    .map(|col| {
-                        col.iter()
-                            .map(|(k, c)| {
-                                if let Some(&(_, i)) = recent.iter().find(|(x, _)| x.same_form(c)) {
-                                    return (*k, i);
-                                }
-                                let i = distinct_index(&mut seen, &mut entries, c);
-                                if recent.len() < RECENT {
-                                    recent.push((c, i));
-                                }
-                                (*k, i)
-                            })
-                            .collect()
-                    })
-                    .collect()
-            })
-            .collect();
+        let dim = b.dim();
+        let mut pairs = Vec::with_capacity(b.images.len() * dim);
+        let mut start = Vec::with_capacity(b.images.len() * dim + 1);
+        start.push(0);
+        for op in &b.images {
+            recent.clear();
+            for col in op {
+                for (k, c) in col {
+                    let i = match recent.iter().find(|(x, _)| x.same_form(c)) {
+                        Some(&(_, i)) => i,
+                        None => {
+                            let i = distinct_index(&mut seen, &mut entries, c);
+                            if recent.len() < RECENT {
+                                recent.push((c, i));
+                            }
+                            i
+                        }
+                    };
+                    pairs.push((*k, i));
+                }
+                start.push(pairs.len());
+            }
+        }
         Images {
             entries,
-            cols: Arc::new(cols),
-            dim: b.dim(),
+            cols: Arc::new(ImageIndex { pairs, start, dim }),
+            dim,
         }
     }
 }
@@ -126,7 +150,7 @@ impl<I: KInt> FastBasis<I> {
     fn apply_unreduced(&self, op: usize, v: &KVec<I>) -> Option<KVec<I>> {
         let phi = self.f.phi();
         let mut out = KVec::zero(self.dim, phi);
-        for (m, col) in self.cols[op].iter().enumerate() {
+        for (m, col) in self.cols.op(op).enumerate() {
             let x = v.entry(m, phi);
             if x.iter().all(I::is_zero) {
                 continue;
@@ -220,13 +244,13 @@ impl<I: KInt> FastIrrep<I> {
     ) -> Option<Vec<KVec<I>>> {
         let phi = fb.f.phi();
         let mut out = vec![KVec::zero(fb.dim, phi); self.d];
-        for (o, cols) in fb.cols.iter().enumerate() {
+        for o in 0..fb.cols.ops() {
             for (k, acc) in out.iter_mut().enumerate() {
                 let f = self.at(inv[o], k, 0, phi);
                 if f.iter().all(I::is_zero) {
                     continue;
                 }
-                for &(t, i) in &cols[m] {
+                for &(t, i) in fb.cols.col(o, m) {
                     fb.f.mul_acc(&mut acc.num[t * phi..(t + 1) * phi], fb.table.at(i, phi), f)?;
                 }
             }
@@ -244,12 +268,12 @@ impl<I: KInt> FastIrrep<I> {
         let phi = fb.f.phi();
         let mut out = KVec::zero(fb.dim, phi);
         let mut fx = vec![I::zero(); phi];
-        for (o, cols) in fb.cols.iter().enumerate() {
+        for o in 0..fb.cols.ops() {
             let f = self.at(inv[o], 0, 0, phi);
             if f.iter().all(I::is_zero) {
                 continue;
             }
-            for (m, col) in cols.iter().enumerate() {
+            for (m, col) in fb.cols.op(o).enumerate() {
                 let x = v.entry(m, phi);
                 if x.iter().all(I::is_zero) {
                     continue;
