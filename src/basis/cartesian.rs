@@ -34,13 +34,18 @@ pub fn cartesian(s: &Structure) -> Basis {
         .enumerate()
         .map(|(o, op)| {
             let mut cols = Vec::with_capacity(3 * s.len());
+            let nonzero: [usize; 3] =
+                std::array::from_fn(|j| (0..3).filter(|&i| !op.matrix[i][j].is_zero()).count());
             for a in 0..s.len() {
                 let b = s.perm[o][a];
-                for j in 0..3 {
-                    let col: Column = (0..3)
-                        .filter(|&i| !op.matrix[i][j].is_zero())
-                        .map(|i| (3 * b + i, op.matrix[i][j].clone()))
-                        .collect();
+                for (j, &terms) in nonzero.iter().enumerate() {
+                    // sized once: a column that grew term by term cost two allocations
+                    let mut col = Column::with_capacity(terms);
+                    for i in 0..3 {
+                        if !op.matrix[i][j].is_zero() {
+                            col.push((3 * b + i, op.matrix[i][j].clone()));
+                        }
+                    }
                     cols.push(col);
                 }
             }

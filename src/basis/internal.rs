@@ -8,7 +8,7 @@
 use super::action::{Basis, BasisKind, Member};
 use super::structure::{orbits, Structure};
 use super::BasisError;
-use crate::exact::Cyclo;
+use crate::exact::{Cyclo, QuickMap};
 
 /// A named set of symmetry-equivalent sites (bonds or angles).
 #[derive(Debug, Clone, PartialEq, Eq)]
@@ -26,15 +26,16 @@ fn bond_name(s: &Structure, (a, b): (usize, usize)) -> String {
 /// Stretches of the given bonds (0-based atom pairs); the set must be closed under the group.
 pub fn stretches(s: &Structure, bonds: &[(usize, usize)]) -> Result<Basis, BasisError> {
     let bonds: Vec<(usize, usize)> = bonds.iter().map(|&(a, b)| (a.min(b), a.max(b))).collect();
+    let index = first_index(&bonds);
     let mut site_perm = Vec::with_capacity(s.group.order());
     for (o, op) in s.group.ops.iter().enumerate() {
         let mut p = Vec::with_capacity(bonds.len());
         for &(a, b) in &bonds {
             let (x, y) = (s.perm[o][a], s.perm[o][b]);
             let img = (x.min(y), x.max(y));
-            let k = bonds
-                .iter()
-                .position(|&q| q == img)
+            let k = index
+                .get(&img)
+                .copied()
                 .ok_or_else(|| BasisError::NotClosed {
                     what: format!("bond {}", bond_name(s, (a, b))),
                     operation: op.name.clone(),
@@ -61,6 +62,16 @@ pub fn stretches(s: &Structure, bonds: &[(usize, usize)]) -> Result<Basis, Basis
         bonds.iter().map(|&q| bond_name(s, q)).collect(),
         site_perm,
     ))
+}
+
+/// Each item's position in the list (the first, where an item repeats): a lookup per image
+/// instead of a scan (C60's 180 angles under 120 operations took 2 ms by scanning).
+fn first_index<T: Copy + Eq + std::hash::Hash>(items: &[T]) -> QuickMap<T, usize> {
+    let mut index = QuickMap::default();
+    for (i, &t) in items.iter().enumerate() {
+        index.entry(t).or_insert(i);
+    }
+    index
 }
 
 /// A basis whose members are scalars permuted by the sites (coefficient +1).
@@ -93,11 +104,8 @@ fn scalar_basis(
 /// The bonds of the structure grouped into sets of symmetry-equivalent bonds.
 pub fn bond_sets(s: &Structure) -> Vec<SiteSet> {
     let bonds = &s.bonds;
-    let find = |q: (usize, usize)| {
-        bonds
-            .iter()
-            .position(|&b| b == (q.0.min(q.1), q.0.max(q.1)))
-    };
+    let index = first_index(bonds);
+    let find = |q: (usize, usize)| index.get(&(q.0.min(q.1), q.0.max(q.1))).copied();
     let orbs = orbits(
         bonds.len(),
         |o, k| {
@@ -174,15 +182,16 @@ pub fn all_angles(s: &Structure) -> Vec<Angle> {
 /// Bends of the given angles; the set must be closed under the group.
 pub fn bends(s: &Structure, angles: &[Angle]) -> Result<Basis, BasisError> {
     let angles: Vec<Angle> = angles.iter().map(|&(i, j, k)| angle_key(i, j, k)).collect();
+    let index = first_index(&angles);
     let mut site_perm = Vec::with_capacity(s.group.order());
     for (o, op) in s.group.ops.iter().enumerate() {
         let p = &s.perm[o];
         let mut row = Vec::with_capacity(angles.len());
         for &q in &angles {
             let img = angle_key(p[q.0], p[q.1], p[q.2]);
-            let k = angles
-                .iter()
-                .position(|&t| t == img)
+            let k = index
+                .get(&img)
+                .copied()
                 .ok_or_else(|| BasisError::NotClosed {
                     what: format!("angle {}", angle_name(s, q)),
                     operation: op.name.clone(),
@@ -213,7 +222,8 @@ pub fn bends(s: &Structure, angles: &[Angle]) -> Result<Basis, BasisError> {
 
 /// Angles grouped into sets of symmetry-equivalent angles (`H-C-H`, `C-C-C(2)`).
 pub fn angle_sets(s: &Structure, angles: &[Angle]) -> Vec<SiteSet> {
-    let find = |q: Angle| angles.iter().position(|&t| t == q);
+    let index = first_index(angles);
+    let find = |q: Angle| index.get(&q).copied();
     let orbs = orbits(
         angles.len(),
         |o, n| {

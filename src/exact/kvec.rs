@@ -19,6 +19,9 @@ use num_traits::{One, Signed, Zero};
 use std::collections::HashMap;
 use std::sync::{Arc, Mutex, OnceLock};
 
+/// Integers below this size multiply as 64-bit numbers into a 128-bit product.
+const SMALL: u128 = 1 << 60;
+
 /// A number field with what products need: its degree k and x^(k+j) modulo its minimal
 /// polynomial for j = 0 … k−2.
 #[derive(Debug)]
@@ -114,6 +117,50 @@ impl KField {
         I::mul_acc(self, acc, a, b)
     }
 
+    /// Multiplication by the fixed number a (numerators) as a k×k integer matrix: column j is
+    /// a·x^j reduced, so a·b = M·b with no reduction step (k² products instead of the k²
+    /// of the convolution plus (k−1)·k of the reduction). Worth it where one number multiplies
+    /// many (a scalar times a vector, a table entry applied to every site).
+    pub fn mul_matrix<I: KInt>(&self, a: &[I]) -> Option<MulMatrix<I>> {
+        let k = self.phi;
+        if a[1..].iter().all(I::is_zero) {
+            return Some(MulMatrix::Scalar(a[0].clone()));
+        }
+        let mut m = vec![I::zero(); k * k];
+        let mut e = vec![I::zero(); k];
+        let mut col = vec![I::zero(); k];
+        for j in 0..k {
+            e.iter_mut().for_each(|x| *x = I::zero());
+            e[j] = I::from_i128(1);
+            col.iter_mut().for_each(|x| *x = I::zero());
+            self.mul_acc(&mut col, a, &e)?;
+            for (i, c) in col.iter().enumerate() {
+                m[i * k + j] = c.clone();
+            }
+        }
+        let small = I::all_small(&m);
+        Some(MulMatrix::Full { m, small })
+    }
+
+    /// acc += a·b for a given by its [`MulMatrix`].
+    #[inline]
+    pub fn mul_acc_by<I: KInt>(&self, acc: &mut [I], a: &MulMatrix<I>, b: &[I]) -> Option<()> {
+        match a {
+            MulMatrix::Scalar(s) => {
+                if s.is_zero() {
+                    return Some(());
+                }
+                for (x, y) in acc.iter_mut().zip(b) {
+                    if !y.is_zero() {
+                        *x = x.add(&s.mul(y)?)?;
+                    }
+                }
+                Some(())
+            }
+            MulMatrix::Full { m, small } => I::mat_acc(acc, m, *small, b),
+        }
+    }
+
     /// The same on big integers (never overflows).
     fn mul_acc_big(&self, acc: &mut [BigInt], a: &[BigInt], b: &[BigInt]) {
         let phi = self.phi;
@@ -186,7 +233,6 @@ impl KField {
         let conv = &mut buf[..2 * phi - 1];
         // Parts below 2⁶⁰ (the usual case): each product is one 64×64 → 128-bit multiply and
         // below 2¹²⁰, and at most 63 of them sum below 2¹²⁶, so no step can overflow.
-        const SMALL: u128 = 1 << 60;
         if a.iter().chain(b).all(|x| x.unsigned_abs() < SMALL) {
             for (i, &x) in a.iter().enumerate() {
                 if x == 0 {
@@ -561,6 +607,8 @@ impl<I: KInt> KVec<I> {
         let ks = den.div_exact(&self.den);
         let ko = den.div_exact(&od);
         let mut prod = vec![I::zero(); phi];
+        // s multiplies every entry: as a matrix once
+        let s = f.mul_matrix(sn)?;
         for (i, o) in other.num.chunks(phi).enumerate() {
             let mine = &mut self.num[i * phi..(i + 1) * phi];
             if o.iter().all(I::is_zero) {
@@ -572,7 +620,7 @@ impl<I: KInt> KVec<I> {
                 continue;
             }
             prod.iter_mut().for_each(|x| *x = I::zero());
-            f.mul_acc(&mut prod, sn, o)?;
+            f.mul_acc_by(&mut prod, &s, o)?;
             for (x, p) in mine.iter_mut().zip(&prod) {
                 *x = x.mul(&ks)?.sub(&p.mul(&ko)?)?;
             }
@@ -613,6 +661,22 @@ pub trait KInt: Clone + std::fmt::Debug + PartialEq + Send + Sync {
     fn cyc_elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self>;
     /// The number nums/den of the cyclotomic field `f`.
     fn cyc_cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo;
+    /// Every entry below 2⁶⁰ in size (machine integers' fast path; never for big integers).
+    fn all_small(_xs: &[Self]) -> bool {
+        false
+    }
+    /// acc += M·b for a row-major k×k matrix M (k = acc's length).
+    fn mat_acc(acc: &mut [Self], m: &[Self], _small: bool, b: &[Self]) -> Option<()> {
+        let k = acc.len();
+        for (x, row) in acc.iter_mut().zip(m.chunks(k)) {
+            for (r, y) in row.iter().zip(b) {
+                if !r.is_zero() && !y.is_zero() {
+                    *x = x.add(&r.mul(y)?)?;
+                }
+            }
+        }
+        Some(())
+    }
 }
 
 impl KInt for i128 {
@@ -670,6 +734,33 @@ impl KInt for i128 {
     }
     fn cyc_cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo {
         f.cyc_cyclo(nums, *den)
+    }
+    fn all_small(xs: &[Self]) -> bool {
+        xs.iter().all(|x| x.unsigned_abs() < SMALL)
+    }
+    #[inline]
+    fn mat_acc(acc: &mut [Self], m: &[Self], small: bool, b: &[Self]) -> Option<()> {
+        let k = acc.len();
+        // Entries of M and b below 2⁶⁰: each product is one 64×64 → 128-bit multiply below
+        // 2¹²⁰, and a row of at most 64 of them sums below 2¹²⁶.
+        if small && k <= 64 && b.iter().all(|y| y.unsigned_abs() < SMALL) {
+            for (x, row) in acc.iter_mut().zip(m.chunks(k)) {
+                let mut t = 0i128;
+                for (&r, &y) in row.iter().zip(b) {
+                    t += (r as i64 as i128) * (y as i64 as i128);
+                }
+                *x = x.checked_add(t)?;
+            }
+            return Some(());
+        }
+        for (x, row) in acc.iter_mut().zip(m.chunks(k)) {
+            for (&r, &y) in row.iter().zip(b) {
+                if r != 0 && y != 0 {
+                    *x = x.checked_add(r.checked_mul(y)?)?;
+                }
+            }
+        }
+        Some(())
     }
 }
 
@@ -740,6 +831,15 @@ impl KInt for BigInt {
 pub struct KTable<I = i128> {
     pub num: Vec<I>,
     pub den: I,
+}
+
+/// Multiplication by one number of a field ([`KField::mul_matrix`]).
+#[derive(Debug, Clone)]
+pub enum MulMatrix<I = i128> {
+    /// A rational number: its numerator times each coordinate.
+    Scalar(I),
+    /// Row-major k×k matrix; `small`: every entry below 2⁶⁰ in size.
+    Full { m: Vec<I>, small: bool },
 }
 
 impl<I: KInt> KTable<I> {

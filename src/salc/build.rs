@@ -690,11 +690,7 @@ fn shown_in_field<I: KInt>(
         // a primitive integer vector along sign·v
         let negative = (f.home_cyclo(xf, &v.den).signum_real() < 0) != (sign < 0);
         let flip = xf[piv].is_negative() != negative;
-        let g = x
-            .chunks(hk)
-            .map(|c| &c[piv])
-            .filter(|t| !t.is_zero())
-            .fold(I::zero(), |g, t| g.gcd(t));
+        let g = gcd_of(x.chunks(hk).map(|c| &c[piv]));
         let mut n2 = I::zero();
         let mut w = Vec::with_capacity(len);
         for c in x.chunks(hk) {
@@ -705,10 +701,7 @@ fn shown_in_field<I: KInt>(
         }
         return Some((w, int_cyclo(&n2)));
     }
-    let g = x
-        .iter()
-        .filter(|t| !t.is_zero())
-        .fold(I::zero(), |g, t| g.gcd(t));
+    let g = gcd_of(x.iter());
     let one = I::from_i128(1);
     let mut w = Vec::with_capacity(len);
     let mut buf = vec![I::zero(); hk];
@@ -752,6 +745,43 @@ impl PartnerRecipe {
     }
 
     fn new(ir: &RealIrrep) -> Self {
+        // d operations with independent first columns, picked on floats (Gram–Schmidt: a
+        // column keeps a part above 10⁻⁶ of its length; the entries are O(1), so such columns
+        // are independent exactly too); the exact inverse below checks it, and where it does
+        // not hold the operations are picked on exact numbers instead.
+        let ops = Self::pick_float(ir)
+            .filter(|ops| Self::inverse_of(ir, ops).is_some())
+            .unwrap_or_else(|| Self::pick_exact(ir));
+        let minv = Self::inverse_of(ir, &ops).expect("chosen columns are independent");
+        PartnerRecipe { ops, minv }
+    }
+
+    fn pick_float(ir: &RealIrrep) -> Option<Vec<usize>> {
+        let d = ir.dim;
+        let mut ops = Vec::new();
+        let mut basis: Vec<Vec<f64>> = Vec::new();
+        for (o, a) in ir.mats.iter().enumerate() {
+            if ops.len() == d {
+                break;
+            }
+            let col: Vec<f64> = (0..d).map(|i| a[i][0].re_f64()).collect();
+            let len = col.iter().map(|x| x * x).sum::<f64>().sqrt();
+            let mut rest = col;
+            for b in &basis {
+                let t: f64 = rest.iter().zip(b).map(|(x, y)| x * y).sum();
+                rest.iter_mut().zip(b).for_each(|(x, y)| *x -= t * y);
+            }
+            let left = rest.iter().map(|x| x * x).sum::<f64>().sqrt();
+            if len > 0.0 && left > 1e-6 * len {
+                rest.iter_mut().for_each(|x| *x /= left);
+                basis.push(rest);
+                ops.push(o);
+            }
+        }
+        (ops.len() == d).then_some(ops)
+    }
+
+    fn pick_exact(ir: &RealIrrep) -> Vec<usize> {
         let d = ir.dim;
         let mut ops = Vec::new();
         let mut cols: Vec<Vec<Cyclo>> = Vec::new();
@@ -766,6 +796,19 @@ impl PartnerRecipe {
                 cols.push(col);
             }
         }
+        ops
+    }
+
+    /// M⁻¹ for the chosen operations; `None` when their first columns are dependent.
+    fn inverse_of(ir: &RealIrrep, ops: &[usize]) -> Option<Matrix> {
+        let d = ir.dim;
+        if ops.len() != d {
+            return None;
+        }
+        let cols: Vec<Vec<Cyclo>> = ops
+            .iter()
+            .map(|&o| (0..d).map(|i| ir.mats[o][i][0].clone()).collect())
+            .collect();
         // M[k][i] = D(R_k)ᵢ₁ and R_k·s₁ = Σᵢ M[k][i]·sᵢ, so sᵢ = Σ_k (M⁻¹)[i][k]·R_k·s₁.
         // Column j of M⁻¹ solves M·y = e_j.
         let m_cols: Vec<Vec<Cyclo>> = (0..d)
@@ -774,13 +817,14 @@ impl PartnerRecipe {
         let inv_cols: Vec<Vec<Cyclo>> = (0..d)
             .map(|j| {
                 let e: Vec<Cyclo> = (0..d).map(|k| Cyclo::from_int((k == j) as i64)).collect();
-                solve_field(&m_cols, &e).expect("chosen columns are independent")
+                solve_field(&m_cols, &e)
             })
-            .collect();
-        let minv = (0..d)
-            .map(|i| (0..d).map(|k| inv_cols[k][i].clone()).collect())
-            .collect();
-        PartnerRecipe { ops, minv }
+            .collect::<Option<_>>()?;
+        Some(
+            (0..d)
+                .map(|i| (0..d).map(|k| inv_cols[k][i].clone()).collect())
+                .collect(),
+        )
     }
 
     fn partners(&self, b: &Basis, s1: Vec<Cyclo>) -> Vec<Vec<Cyclo>> {
@@ -875,6 +919,20 @@ fn shown(v: Vec<Cyclo>, sign: i64, norm2: Option<Cyclo>) -> (Vec<Cyclo>, Cyclo) 
     (w, n2)
 }
 
+/// gcd of the nonzero integers (0 when there are none), stopping once it reaches 1.
+fn gcd_of<'a, I: KInt + 'a>(xs: impl Iterator<Item = &'a I>) -> I {
+    let mut g = I::zero();
+    for t in xs {
+        if !t.is_zero() {
+            g = g.gcd(t);
+            if g.is_one() {
+                break;
+            }
+        }
+    }
+    g
+}
+
 #[cfg(test)]
 mod tests {
     use super::{shown, shown_in_field};
@@ -934,6 +992,30 @@ mod tests {
                 prop_assert!(n2 == general.1);
             }
         }
+    }
+
+    /// The partner recipe's operations picked on floats are those picked on exact numbers
+    /// (the first d operations whose first matrix columns are independent), for every irrep of
+    /// dimension > 1 of every finite group in the tables, and their exact inverse exists.
+    // Reference: the crate's exact linear solve (differential testing, common practice).
+    #[test]
+    fn recipe_operations_picked_on_floats_match_exact() {
+        let mut compared = 0;
+        for name in crate::group::names() {
+            let g = crate::group::load(name).unwrap();
+            if g.is_linear() {
+                continue;
+            }
+            for ir in crate::salc::real_irreps(&g).unwrap().iter() {
+                let exact = super::PartnerRecipe::pick_exact(ir);
+                assert_eq!(exact.len(), ir.dim, "{name} {}", ir.label);
+                let float = super::PartnerRecipe::pick_float(ir);
+                assert_eq!(float.as_ref(), Some(&exact), "{name} {}", ir.label);
+                assert!(super::PartnerRecipe::inverse_of(ir, &exact).is_some());
+                compared += 1;
+            }
+        }
+        assert!(compared > 300, "{compared} irreps compared");
     }
 
     /// The memory watch reads this process's resident size (Linux /proc/self/statm, field 2 =

@@ -7,7 +7,7 @@
 
 use super::irreps::{Matrix, RealIrrep};
 use crate::basis::Basis;
-use crate::exact::{Cyclo, CycloKey, FieldSpec, KField, KInt, KTable, KVec, QuickMap};
+use crate::exact::{Cyclo, CycloKey, FieldSpec, KField, KInt, KTable, KVec, MulMatrix, QuickMap};
 use crate::group::PointGroup;
 use std::collections::HashMap;
 use std::sync::{Arc, Mutex, OnceLock};
@@ -49,6 +49,8 @@ impl ImageIndex {
 pub(super) struct FastBasis<I = i128> {
     pub f: Arc<KField>,
     table: KTable<I>,
+    /// Each distinct number of `table` as a multiplication matrix.
+    mats: Vec<MulMatrix<I>>,
     cols: Arc<ImageIndex>,
     dim: usize,
 }
@@ -138,9 +140,14 @@ impl<I: KInt> FastBasis<I> {
             return None;
         }
         let table = KTable::from_cyclos(&f, im.entries.iter().copied())?;
+        let phi = f.phi();
+        let mats = (0..im.entries.len())
+            .map(|i| f.mul_matrix(table.at(i, phi)))
+            .collect::<Option<_>>()?;
         Some(FastBasis {
             f,
             table,
+            mats,
             cols: im.cols.clone(),
             dim: im.dim,
         })
@@ -156,11 +163,8 @@ impl<I: KInt> FastBasis<I> {
                 continue;
             }
             for &(k, i) in col {
-                self.f.mul_acc(
-                    &mut out.num[k * phi..(k + 1) * phi],
-                    self.table.at(i, phi),
-                    x,
-                )?;
+                self.f
+                    .mul_acc_by(&mut out.num[k * phi..(k + 1) * phi], &self.mats[i], x)?;
             }
         }
         out.den = self.table.den.mul(&v.den)?;
@@ -174,6 +178,8 @@ pub(super) struct FastIrrep<I = i128> {
     table: KTable<I>,
     d: usize,
     pub minv: KTable<I>,
+    /// Each entry of `minv` as a multiplication matrix.
+    minv_mats: Vec<MulMatrix<I>>,
 }
 
 impl FastIrrep<i128> {
@@ -224,10 +230,14 @@ impl<I: KInt> FastIrrep<I> {
             den: distinct.den,
         };
         let minv = KTable::from_cyclos(f, minv.iter().flatten())?;
+        let minv_mats = (0..ir.dim * ir.dim)
+            .map(|i| f.mul_matrix(minv.at(i, phi)))
+            .collect::<Option<_>>()?;
         Some(FastIrrep {
             table,
             d: ir.dim,
             minv,
+            minv_mats,
         })
     }
     #[inline]
@@ -251,7 +261,7 @@ impl<I: KInt> FastIrrep<I> {
                     continue;
                 }
                 for &(t, i) in fb.cols.col(o, m) {
-                    fb.f.mul_acc(&mut acc.num[t * phi..(t + 1) * phi], fb.table.at(i, phi), f)?;
+                    fb.f.mul_acc_by(&mut acc.num[t * phi..(t + 1) * phi], &fb.mats[i], f)?;
                 }
             }
         }
@@ -281,11 +291,7 @@ impl<I: KInt> FastIrrep<I> {
                 fx.iter_mut().for_each(|a| *a = I::zero());
                 fb.f.mul_acc(&mut fx, f, x)?;
                 for &(k, i) in col {
-                    fb.f.mul_acc(
-                        &mut out.num[k * phi..(k + 1) * phi],
-                        fb.table.at(i, phi),
-                        &fx,
-                    )?;
+                    fb.f.mul_acc_by(&mut out.num[k * phi..(k + 1) * phi], &fb.mats[i], &fx)?;
                 }
             }
         }
@@ -319,15 +325,15 @@ pub(super) fn partners<I: KInt>(
     for i in 0..d {
         let mut v = KVec::zero(fb.dim, phi);
         for (k, img) in images.iter().enumerate() {
-            let f = minv.at(i * d + k, phi);
-            if f.iter().all(I::is_zero) {
+            if minv.at(i * d + k, phi).iter().all(I::is_zero) {
                 continue;
             }
+            let f = &fi.minv_mats[i * d + k];
             for (acc, x) in v.num.chunks_mut(phi).zip(img.num.chunks(phi)) {
                 if x.iter().all(I::is_zero) {
                     continue;
                 }
-                fb.f.mul_acc(acc, f, x)?;
+                fb.f.mul_acc_by(acc, f, x)?;
             }
         }
         v.den = minv.den.mul(&den)?;
