@@ -477,9 +477,7 @@ fn lowest_scalar<I: KInt>(mut nums: Vec<I>, den: I) -> (Vec<I>, I) {
     if g.is_one() || g.is_zero() {
         return (nums, den);
     }
-    for x in &mut nums {
-        *x = x.div_exact(&g);
-    }
+    I::div_exact_all(&mut nums, &g);
     (nums, den.div_exact(&g))
 }
 
@@ -566,9 +564,7 @@ impl<I: KInt> KVec<I> {
             }
         }
         if !g.is_one() && !g.is_zero() {
-            for x in &mut self.num {
-                *x = x.div_exact(&g);
-            }
+            I::div_exact_all(&mut self.num, &g);
             self.den = self.den.div_exact(&g);
         }
     }
@@ -661,6 +657,16 @@ pub trait KInt: Clone + std::fmt::Debug + PartialEq + Send + Sync {
     fn cyc_elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self>;
     /// The number nums/den of the cyclotomic field `f`.
     fn cyc_cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo;
+    /// The number as a 64-bit integer, if it fits.
+    fn to_i64(&self) -> Option<i64> {
+        self.to_big().try_into().ok()
+    }
+    /// x / g for every x, each a multiple of g > 0.
+    fn div_exact_all(xs: &mut [Self], g: &Self) {
+        for x in xs {
+            *x = x.div_exact(g);
+        }
+    }
     /// Every entry below 2⁶⁰ in size (machine integers' fast path; never for big integers).
     fn all_small(_xs: &[Self]) -> bool {
         false
@@ -737,6 +743,34 @@ impl KInt for i128 {
     }
     fn all_small(xs: &[Self]) -> bool {
         xs.iter().all(|x| x.unsigned_abs() < SMALL)
+    }
+    fn to_i64(&self) -> Option<i64> {
+        i64::try_from(*self).ok()
+    }
+    fn div_exact_all(xs: &mut [Self], g: &Self) {
+        // Exact division as a multiplication (Granlund & Montgomery, PLDI 1994, §9): with
+        // g = 2ˢ·u, u odd, x/g = (x >> s)·u⁻¹ mod 2⁶⁴ when g divides x and the quotient fits
+        // 64 bits; a division instruction costs far more than a multiply.
+        let small =
+            *g > 0 && *g <= i64::MAX as i128 && xs.iter().all(|x| i64::try_from(*x).is_ok());
+        if !small {
+            for x in xs {
+                *x /= *g;
+            }
+            return;
+        }
+        let s = g.trailing_zeros();
+        let u = (*g as u64) >> s;
+        // Newton's iteration for u⁻¹ mod 2⁶⁴: each step doubles the correct low bits (u·u ≡ 1
+        // mod 8 for odd u gives 3 bits to start)
+        let mut inv = u;
+        for _ in 0..5 {
+            inv = inv.wrapping_mul(2u64.wrapping_sub(u.wrapping_mul(inv)));
+        }
+        for x in xs {
+            let shifted = (*x as i64) >> s;
+            *x = (shifted as u64).wrapping_mul(inv) as i64 as i128;
+        }
     }
     #[inline]
     fn mat_acc(acc: &mut [Self], m: &[Self], small: bool, b: &[Self]) -> Option<()> {

@@ -552,3 +552,30 @@ mod subfields_agree {
         assert!(f.elem(&r15).is_some());
     }
 }
+
+/// Exact division by multiplication with the inverse of the odd part (machine integers) gives
+/// the quotients plain division gives, for multiples of g of either sign up to the 64-bit range,
+/// and for numbers beyond it (plain division then).
+// Reference: integer division in the standard library (differential testing, common practice).
+mod exact_division_agrees {
+    use super::super::KInt;
+    use proptest::prelude::*;
+
+    proptest! {
+        #[test]
+        fn div_exact_all_matches_division(
+            g in prop_oneof![1i128..=40, 1i128..=(1 << 40), Just(1i128 << 62), Just(i64::MAX as i128)],
+            qs in proptest::collection::vec(prop_oneof![-1000i128..=1000, i64::MIN as i128..=i64::MAX as i128], 1..20),
+            wide in any::<bool>(),
+        ) {
+            // x = q·g, kept within 64 bits unless `wide`
+            let mut xs: Vec<i128> = qs
+                .iter()
+                .map(|&q| if wide { q * g } else { (q % (i64::MAX as i128 / g).max(1)) * g })
+                .collect();
+            let want: Vec<i128> = xs.iter().map(|x| x / g).collect();
+            <i128 as KInt>::div_exact_all(&mut xs, &g);
+            prop_assert_eq!(xs, want);
+        }
+    }
+}

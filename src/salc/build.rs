@@ -681,9 +681,9 @@ fn shown_in_field<I: KInt>(
         }
     }
     let int_cyclo = |t: &I| -> Cyclo {
-        match t.to_big().try_into() {
-            Ok(small) => Cyclo::from_int(small),
-            Err(_) => Cyclo::from_rational(BigRational::from_integer(t.to_big())),
+        match t.to_i64() {
+            Some(small) => Cyclo::from_int(small),
+            None => Cyclo::from_rational(BigRational::from_integer(t.to_big())),
         }
     };
     if proportional {
