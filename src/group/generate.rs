@@ -57,6 +57,24 @@ fn same(a: &Matrix3<f64>, b: &Matrix3<f64>) -> bool {
     (a - b).abs().max() < TOL
 }
 
+/// Operations found so far, by their rounded entries ([`super::op_key`]): a lookup instead of a
+/// scan of every operation (Ih's closure and classes made 150,000 matrix comparisons). A key
+/// miss next to a rounding boundary falls back to the scan, so nothing is ever missed.
+#[derive(Default)]
+struct Lookup(std::collections::HashMap<[i32; 9], usize>);
+
+impl Lookup {
+    fn add(&mut self, m: &Matrix3<f64>, at: usize) {
+        self.0.entry(super::op_key(m)).or_insert(at);
+    }
+    fn find(&self, all: &[Matrix3<f64>], m: &Matrix3<f64>) -> Option<usize> {
+        match self.0.get(&super::op_key(m)) {
+            Some(&i) if same(&all[i], m) => Some(i),
+            _ => all.iter().position(|q| same(q, m)),
+        }
+    }
+}
+
 /// Generate all operations and their classes. Errors describe what does not match the table.
 pub fn generate(table: &CharacterTable) -> Result<Vec<SymOp>, String> {
     let order = table
@@ -71,12 +89,15 @@ pub fn generate(table: &CharacterTable) -> Result<Vec<SymOp>, String> {
     // Closure.
     let mut exact: Vec<Mat3> = vec![matrix::identity()];
     let mut float: Vec<Matrix3<f64>> = vec![Matrix3::identity()];
+    let mut keys = Lookup::default();
+    keys.add(&float[0], 0);
     let mut frontier = 0;
     while frontier < float.len() {
         let (fx, ex) = (float[frontier], exact[frontier].clone());
         for (g, ge) in rep_f.iter().zip(&reps) {
             let p = g * fx;
-            if !float.iter().any(|q| same(q, &p)) {
+            if keys.find(&float, &p).is_none() {
+                keys.add(&p, float.len());
                 float.push(p);
                 exact.push(matrix::shrink(&matrix::mul(ge, &ex)));
                 if float.len() > order {
@@ -95,7 +116,7 @@ pub fn generate(table: &CharacterTable) -> Result<Vec<SymOp>, String> {
         ));
     }
     // Conjugacy classes.
-    let find = |m: &Matrix3<f64>| float.iter().position(|q| same(q, m));
+    let find = |m: &Matrix3<f64>| keys.find(&float, m);
     let mut class_of = vec![usize::MAX; order];
     for (k, rf) in rep_f.iter().enumerate() {
         let idx = find(rf).ok_or("a representative is not in the group")?;

@@ -49,7 +49,7 @@ pub struct PointGroup {
 /// A hash key for an operation matrix: entries rounded to 1/1000 (the entries of point-group
 /// operations are cosines and sines of whole fractions of a turn, never near a rounding
 /// boundary of this grid in practice; a miss falls back to a full search).
-fn op_key(m: &Matrix3<f64>) -> [i32; 9] {
+pub(crate) fn op_key(m: &Matrix3<f64>) -> [i32; 9] {
     std::array::from_fn(|k| (m[(k / 3, k % 3)] * 1000.0).round() as i32)
 }
 

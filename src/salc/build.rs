@@ -154,6 +154,10 @@ struct Ceiling {
     limit: Duration,
     /// When memory was last looked at (µs since `start`).
     memory_seen: std::sync::atomic::AtomicU64,
+    /// The resident MB that stopped the work (0: not stopped): once one irrep sees the memory
+    /// ceiling, the others running beside it stop at their next check, instead of growing
+    /// until they look for themselves.
+    memory_stop: std::sync::atomic::AtomicU64,
 }
 
 impl Ceiling {
@@ -162,6 +166,7 @@ impl Ceiling {
             start: COMMAND_START.get().copied().unwrap_or_else(Instant::now),
             limit: EXACT_CEILING,
             memory_seen: std::sync::atomic::AtomicU64::new(0),
+            memory_stop: std::sync::atomic::AtomicU64::new(0),
         }
     }
     fn check(&self, irrep: &str) -> Result<(), SalcError> {
@@ -173,16 +178,22 @@ impl Ceiling {
                 seconds: self.limit.as_secs_f64(),
             });
         }
-        // memory every 5 ms at most (reading it costs a system call)
+        let stopped = |mb| SalcError::MemoryCeiling {
+            irrep: irrep.to_string(),
+            megabytes: mb,
+        };
+        let stop = self.memory_stop.load(Ordering::Relaxed);
+        if stop != 0 {
+            return Err(stopped(stop));
+        }
+        // memory every 2 ms at most (reading it costs a system call)
         let now = elapsed.as_micros() as u64;
         let seen = self.memory_seen.load(Ordering::Relaxed);
-        if now.saturating_sub(seen) >= 5_000 {
+        if now.saturating_sub(seen) >= 2_000 {
             self.memory_seen.store(now, Ordering::Relaxed);
             if let Some(mb) = resident_mb().filter(|&mb| mb > MEMORY_CEILING_MB) {
-                return Err(SalcError::MemoryCeiling {
-                    irrep: irrep.to_string(),
-                    megabytes: mb,
-                });
+                self.memory_stop.store(mb, Ordering::Relaxed);
+                return Err(stopped(mb));
             }
         }
         Ok(())
