@@ -87,6 +87,48 @@ pub(super) fn extend(
     gen_mats: &[Matrix],
     steps: &[(usize, usize, usize)],
 ) -> Option<Vec<Matrix>> {
+    let (f, d, mats) = extend_in_field(h, gens, gen_mats, steps)?;
+    mats.iter().map(|m| Some(to_matrix(&f, d, m))).collect()
+}
+
+/// For matrices of a function tuple on the generators: do their products have the characters
+/// `chars` (`Some(None)` when not), and if so the invariant form Σ AᵀA over every operation,
+/// all on integers (the operations' matrices are never turned into exact numbers here: the
+/// caller keeps only the form). `None` to take the exact-number path.
+pub(super) fn checked_form(
+    h: usize,
+    gens: &[usize],
+    gen_mats: &[Matrix],
+    steps: &[(usize, usize, usize)],
+    chars: &[Cyclo],
+) -> Option<Option<Matrix>> {
+    let (f, d, mats) = extend_in_field(h, gens, gen_mats, steps)?;
+    let k = f.phi();
+    let mut trace = vec![0i128; k];
+    for (m, chi) in mats.iter().zip(chars) {
+        trace.iter_mut().for_each(|t| *t = 0);
+        for i in 0..d {
+            for (t, x) in trace
+                .iter_mut()
+                .zip(&m.num[(i * d + i) * k..(i * d + i + 1) * k])
+            {
+                *t = t.checked_add(*x)?;
+            }
+        }
+        if f.cyclo_of(&trace, &m.den) != *chi {
+            return Some(None);
+        }
+    }
+    Some(Some(form_of(&f, d, &mats)?))
+}
+
+/// The generators' matrices over their field and every product.
+fn extend_in_field(
+    h: usize,
+    gens: &[usize],
+    gen_mats: &[Matrix],
+    steps: &[(usize, usize, usize)],
+) -> Option<(Arc<KField>, usize, Vec<KMat>)> {
     let d = gen_mats.first()?.len();
     let refs: Vec<&Matrix> = gen_mats.iter().collect();
     let (f, conv) = field_for(&refs)?;
@@ -106,9 +148,8 @@ pub(super) fn extend(
             mats[o] = Some(m);
         }
     }
-    mats.iter()
-        .map(|m| m.as_ref().map(|m| to_matrix(&f, d, m)))
-        .collect()
+    let mats = mats.into_iter().collect::<Option<Vec<KMat>>>()?;
+    Some((f, d, mats))
 }
 
 /// B = Σ_R A(R)ᵀ A(R), or `None` to take the exact-number path.
@@ -116,16 +157,21 @@ pub(super) fn invariant_form(mats: &[Matrix]) -> Option<Matrix> {
     let d = mats.first()?.len();
     let refs: Vec<&Matrix> = mats.iter().collect();
     let (f, conv) = field_for(&refs)?;
+    form_of(&f, d, &conv)
+}
+
+/// Σ AᵀA over integer-form matrices.
+fn form_of(f: &KField, d: usize, conv: &[KMat]) -> Option<Matrix> {
     let k = f.phi();
     // Σ over matrices with different denominators: bring every term to the lcm
     let mut den: i128 = 1;
-    for m in &conv {
+    for m in conv {
         let sq = m.den.checked_mul(m.den)?;
         den = den.lcm(&sq)?;
     }
     let mut num = vec![0i128; d * d * k];
     let mut t = vec![0i128; k];
-    for m in &conv {
+    for m in conv {
         let scale = den / (m.den * m.den);
         for i in 0..d {
             for j in 0..d {
@@ -147,7 +193,7 @@ pub(super) fn invariant_form(mats: &[Matrix]) -> Option<Matrix> {
     let mut v = KVec { num, den };
     v.lowest_terms();
     Some(to_matrix(
-        &f,
+        f,
         d,
         &KMat {
             num: v.num,

@@ -180,12 +180,10 @@ fn build(g: &PointGroup, row: usize, built: &[RealIrrep]) -> Result<RealIrrep, I
         return Ok(mk(mats, vec![Cyclo::one()], MatrixSource::Character));
     }
     for t in ir.functions.all().filter(|t| t.dim() == dim) {
-        if let Some(mats) = from_tuple(g, t, &chars) {
+        if let Some((gen_mats, b)) = from_tuple(g, t, &chars) {
             let (mats, norms) = {
-                let b = invariant_form_from(&mats);
                 // the new basis's matrices on the generators, the rest by products
                 let gens = &generation(g).0;
-                let gen_mats: Vec<Matrix> = gens.iter().map(|&o| mats[o].clone()).collect();
                 let (new, norms) = orthogonalize(gen_mats, &b);
                 (extend_from_generators(g, gens, new), norms)
             };
@@ -390,19 +388,28 @@ fn extend_on_numbers(
         .collect()
 }
 
-/// Matrices of a tuple, if they have the irrep's character. Only the generators' matrices are
-/// read from the functions; the rest are their products (the tuple's action is a homomorphism).
-fn from_tuple(g: &PointGroup, t: &FunctionTuple, chars: &[Cyclo]) -> Option<Vec<Matrix>> {
-    let gens = &generation(g).0;
+/// A tuple's matrices on the generators and the invariant form Σ AᵀA over every operation, if
+/// the tuple carries the irrep: real matrices (products of the generators' real ones are real)
+/// with the irrep's character on every operation. Only the generators' matrices are read from
+/// the functions; the rest are their products (the tuple's action is a homomorphism).
+fn from_tuple(g: &PointGroup, t: &FunctionTuple, chars: &[Cyclo]) -> Option<(Vec<Matrix>, Matrix)> {
+    let gen_steps = generation(g);
+    let (gens, steps) = (&gen_steps.0, &gen_steps.1);
     let gen_mats = crate::group::tuple_matrices(gens.iter().map(|&o| &g.ops[o].matrix), t)?;
-    let mats = extend_from_generators(g, gens, gen_mats);
+    if gen_mats.iter().flatten().flatten().any(|x| !x.is_real()) {
+        return None;
+    }
+    if let Some(form) = super::fast_mats::checked_form(g.order(), gens, &gen_mats, steps, chars) {
+        return form.map(|b| (gen_mats, b));
+    }
+    let mats = extend_on_numbers(g, gens, gen_mats.clone(), steps);
     for (o, m) in mats.iter().enumerate() {
         let tr: Cyclo = (0..m.len()).map(|i| m[i][i].clone()).sum();
-        if tr != chars[o] || m.iter().flatten().any(|x| !x.is_real()) {
+        if tr != chars[o] {
             return None;
         }
     }
-    Some(mats)
+    Some((gen_mats, invariant_form_from(&mats)))
 }
 
 /// B = Σ_R A(R)ᵀ A(R): positive definite and invariant.
@@ -667,6 +674,30 @@ mod tests {
                     "{name} {}",
                     ir.label
                 );
+                // the character check and form on integers: the irrep's own characters pass
+                // with the same form; any other character (the trace with one operation's
+                // value changed) is refused
+                let chars = real_chars(&g, ir.row);
+                let checked = super::super::fast_mats::checked_form(
+                    g.order(),
+                    &gens,
+                    &gen_mats,
+                    &steps,
+                    &chars,
+                )
+                .expect("fits");
+                assert!(checked == Some(b), "{name} {}", ir.label);
+                let mut wrong = chars.clone();
+                let last = wrong.len() - 1;
+                wrong[last] = &wrong[last] + &Cyclo::one();
+                let refused = super::super::fast_mats::checked_form(
+                    g.order(),
+                    &gens,
+                    &gen_mats,
+                    &steps,
+                    &wrong,
+                );
+                assert!(refused == Some(None), "{name} {}", ir.label);
                 compared += 1;
             }
         }
