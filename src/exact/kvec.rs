@@ -657,6 +657,20 @@ pub trait KInt: Clone + std::fmt::Debug + PartialEq + Send + Sync {
     fn cyc_elem_into(f: &KField, c: &Cyclo, out: &mut [Self]) -> Option<Self>;
     /// The number nums/den of the cyclotomic field `f`.
     fn cyc_cyclo(f: &KField, nums: &[Self], den: &Self) -> Cyclo;
+    /// out += Σⱼ y[j]·rows[j] (rows of machine integers).
+    fn combine_rows(out: &mut [Self], y: &[Self], rows: &[Vec<i128>]) -> Option<()> {
+        for (yj, row) in y.iter().zip(rows) {
+            if yj.is_zero() {
+                continue;
+            }
+            for (o, &p) in out.iter_mut().zip(row) {
+                if p != 0 {
+                    *o = o.add(&yj.mul(&Self::from_i128(p))?)?;
+                }
+            }
+        }
+        Some(())
+    }
     /// The number as a 64-bit integer, if it fits.
     fn to_i64(&self) -> Option<i64> {
         self.to_big().try_into().ok()
@@ -746,6 +760,36 @@ impl KInt for i128 {
     }
     fn to_i64(&self) -> Option<i64> {
         i64::try_from(*self).ok()
+    }
+    fn combine_rows(out: &mut [Self], y: &[Self], rows: &[Vec<i128>]) -> Option<()> {
+        // parts below 2⁶⁰: 64×64 → 128-bit products, at most 64 of them below 2¹²⁶ in all
+        let small = y.len() <= 64
+            && y.iter().all(|v| v.unsigned_abs() < SMALL)
+            && rows.iter().flatten().all(|p| p.unsigned_abs() < SMALL)
+            && out.iter().all(|v| v.unsigned_abs() < SMALL);
+        if !small {
+            for (&yj, row) in y.iter().zip(rows) {
+                if yj == 0 {
+                    continue;
+                }
+                for (o, &p) in out.iter_mut().zip(row) {
+                    if p != 0 {
+                        *o = o.checked_add(yj.checked_mul(p)?)?;
+                    }
+                }
+            }
+            return Some(());
+        }
+        for (&yj, row) in y.iter().zip(rows) {
+            if yj == 0 {
+                continue;
+            }
+            let yj = yj as i64 as i128;
+            for (o, &p) in out.iter_mut().zip(row) {
+                *o += yj * (p as i64 as i128);
+            }
+        }
+        Some(())
     }
     fn div_exact_all(xs: &mut [Self], g: &Self) {
         // Exact division as a multiplication (Granlund & Montgomery, PLDI 1994, §9): with

@@ -256,17 +256,7 @@ impl Embedding {
     /// Q(ζₙ) numerators of the number with η-coordinates `y` (same denominator).
     pub fn expand<I: KInt>(&self, y: &[I], out: &mut [I]) -> Option<()> {
         out.iter_mut().for_each(|o| *o = I::zero());
-        for (j, yj) in y.iter().enumerate() {
-            if yj.is_zero() {
-                continue;
-            }
-            for (o, &p) in out.iter_mut().zip(&self.powers[j]) {
-                if p != 0 {
-                    *o = o.add(&yj.mul(&I::from_i128(p))?)?;
-                }
-            }
-        }
-        Some(())
+        I::combine_rows(out, y, &self.powers)
     }
 }
 

@@ -670,22 +670,17 @@ fn shown_in_field<I: KInt>(
     }
     let (k, hk) = (f.phi(), f.home_degree());
     let len = v.num.len() / k;
-    let mut x = vec![I::zero(); len * hk];
-    for (src, dst) in v.num.chunks(k).zip(x.chunks_mut(hk)) {
-        if src.iter().any(|t| !t.is_zero()) {
-            f.home_nums(src, dst)?;
-        }
-    }
     let nonzero = |c: &[I]| c.iter().any(|t| !t.is_zero());
-    let Some(xf) = x.chunks(hk).find(|c| nonzero(c)) else {
+    let Some(yf) = v.num.chunks(k).find(|c| nonzero(c)) else {
         return Some((vec![Cyclo::zero(); len], Cyclo::zero()));
     };
-    let piv = xf.iter().position(|t| !t.is_zero())?;
-    // all entries rational multiples of the first nonzero one: xᵢ·x_f[p] = x_f·xᵢ[p]
+    let piv = yf.iter().position(|t| !t.is_zero())?;
+    // all entries rational multiples of the first nonzero one: yᵢ·y_f[p] = y_f·yᵢ[p] (on the
+    // field's own coordinates: proportional there exactly when proportional in Q(ζₙ))
     let mut proportional = true;
-    'scan: for c in x.chunks(hk) {
-        for (a, b) in c.iter().zip(xf) {
-            if a.mul(&xf[piv])? != b.mul(&c[piv])? {
+    'scan: for c in v.num.chunks(k) {
+        for (a, b) in c.iter().zip(yf) {
+            if a.mul(&yf[piv])? != b.mul(&c[piv])? {
                 proportional = false;
                 break 'scan;
             }
@@ -698,19 +693,26 @@ fn shown_in_field<I: KInt>(
         }
     };
     if proportional {
-        // a primitive integer vector along sign·v
-        let negative = (f.home_cyclo(xf, &v.den).signum_real() < 0) != (sign < 0);
-        let flip = xf[piv].is_negative() != negative;
-        let g = gcd_of(x.chunks(hk).map(|c| &c[piv]));
+        // a primitive integer vector along sign·v (the same from either coordinates: the
+        // ratios are the same rationals)
+        let negative = (f.cyclo_of(yf, &v.den).signum_real() < 0) != (sign < 0);
+        let flip = yf[piv].is_negative() != negative;
+        let g = gcd_of(v.num.chunks(k).map(|c| &c[piv]));
         let mut n2 = I::zero();
         let mut w = Vec::with_capacity(len);
-        for c in x.chunks(hk) {
+        for c in v.num.chunks(k) {
             let t = c[piv].div_exact(&g);
             let t = if flip { I::zero().sub(&t)? } else { t };
             n2 = n2.add(&t.mul(&t)?)?;
             w.push(int_cyclo(&t));
         }
         return Some((w, int_cyclo(&n2)));
+    }
+    let mut x = vec![I::zero(); len * hk];
+    for (src, dst) in v.num.chunks(k).zip(x.chunks_mut(hk)) {
+        if nonzero(src) {
+            f.home_nums(src, dst)?;
+        }
     }
     let g = gcd_of(x.iter());
     let one = I::from_i128(1);
