@@ -61,7 +61,7 @@ fn same(a: &Matrix3<f64>, b: &Matrix3<f64>) -> bool {
 /// scan of every operation (Ih's closure and classes made 150,000 matrix comparisons). A key
 /// miss next to a rounding boundary falls back to the scan, so nothing is ever missed.
 #[derive(Default)]
-struct Lookup(std::collections::HashMap<[i32; 9], usize>);
+struct Lookup(crate::exact::QuickMap<[i32; 9], usize>);
 
 impl Lookup {
     fn add(&mut self, m: &Matrix3<f64>, at: usize) {

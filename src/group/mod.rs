@@ -20,8 +20,8 @@ pub use table::{
     TableError, Turn,
 };
 
+use crate::exact::QuickMap;
 use nalgebra::Matrix3;
-use std::collections::HashMap;
 use std::sync::OnceLock;
 
 /// Errors when loading a group.
@@ -43,7 +43,7 @@ pub struct PointGroup {
     pub ops: Vec<SymOp>,
     products: OnceLock<Vec<Vec<usize>>>,
     inverses: OnceLock<Vec<usize>>,
-    by_key: OnceLock<HashMap<[i32; 9], usize>>,
+    by_key: OnceLock<QuickMap<[i32; 9], usize>>,
 }
 
 /// A hash key for an operation matrix: entries rounded to 1/1000 (the entries of point-group
@@ -104,9 +104,10 @@ impl PointGroup {
             .position(|o| (o.float - m).abs().max() < 1e-6)
     }
     /// Operations by their rounded matrices (see [`op_key`]), built once.
-    fn lookup(&self) -> &HashMap<[i32; 9], usize> {
+    fn lookup(&self) -> &QuickMap<[i32; 9], usize> {
         self.by_key.get_or_init(|| {
-            let mut map = HashMap::with_capacity(self.ops.len());
+            let mut map = QuickMap::default();
+            map.reserve(self.ops.len());
             for (i, o) in self.ops.iter().enumerate() {
                 map.entry(op_key(&o.float)).or_insert(i);
             }

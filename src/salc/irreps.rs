@@ -257,13 +257,23 @@ fn from_product_with_1d(
             if (0..chars.len()).any(|o| chars[o] != &lchars[o] * &ychars[o]) {
                 continue;
             }
+            // χ_L(R) = ±1 for the rational one-dimensional L: a copy or a negation per entry
             let mats = y
                 .mats
                 .iter()
                 .zip(&lchars)
                 .map(|(m, s)| {
+                    let sign = s.to_i64();
                     m.iter()
-                        .map(|r| r.iter().map(|x| x * s).collect())
+                        .map(|r| {
+                            r.iter()
+                                .map(|x| match sign {
+                                    Some(1) => x.clone(),
+                                    Some(-1) => -x,
+                                    _ => x * s,
+                                })
+                                .collect()
+                        })
                         .collect()
                 })
                 .collect();
@@ -305,7 +315,11 @@ fn compute_generation(g: &PointGroup) -> Generation {
             let x = queue[k];
             k += 1;
             for &s in gens {
-                let y = g.product(s, x);
+                // (the generators' products only: the whole table, 14,400 products for Ih,
+                // is not needed here)
+                let y = g
+                    .op_index(&(g.ops[s].float * g.ops[x].float))
+                    .expect("group is closed");
                 if !seen[y] {
                     seen[y] = true;
                     queue.push(y);
