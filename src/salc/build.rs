@@ -769,15 +769,26 @@ impl PartnerRecipe {
         PartnerRecipe { ops, minv }
     }
 
-    fn pick_float(ir: &RealIrrep) -> Option<Vec<usize>> {
-        let d = ir.dim;
+    /// The first d operations that `keep` accepts (it sees each operation in turn, in order,
+    /// until d are kept).
+    fn pick(ir: &RealIrrep, mut keep: impl FnMut(usize) -> bool) -> Vec<usize> {
         let mut ops = Vec::new();
-        let mut basis: Vec<Vec<f64>> = Vec::new();
-        for (o, a) in ir.mats.iter().enumerate() {
-            if ops.len() == d {
+        for o in 0..ir.mats.len() {
+            if ops.len() == ir.dim {
                 break;
             }
-            let col: Vec<f64> = (0..d).map(|i| a[i][0].re_f64()).collect();
+            if keep(o) {
+                ops.push(o);
+            }
+        }
+        ops
+    }
+
+    fn pick_float(ir: &RealIrrep) -> Option<Vec<usize>> {
+        let d = ir.dim;
+        let mut basis: Vec<Vec<f64>> = Vec::new();
+        let ops = Self::pick(ir, |o| {
+            let col: Vec<f64> = (0..d).map(|i| ir.mats[o][i][0].re_f64()).collect();
             let len = col.iter().map(|x| x * x).sum::<f64>().sqrt();
             let mut rest = col;
             for b in &basis {
@@ -785,31 +796,28 @@ impl PartnerRecipe {
                 rest.iter_mut().zip(b).for_each(|(x, y)| *x -= t * y);
             }
             let left = rest.iter().map(|x| x * x).sum::<f64>().sqrt();
-            if len > 0.0 && left > 1e-6 * len {
+            let kept = len > 0.0 && left > 1e-6 * len;
+            if kept {
                 rest.iter_mut().for_each(|x| *x /= left);
                 basis.push(rest);
-                ops.push(o);
             }
-        }
+            kept
+        });
         (ops.len() == d).then_some(ops)
     }
 
     fn pick_exact(ir: &RealIrrep) -> Vec<usize> {
         let d = ir.dim;
-        let mut ops = Vec::new();
         let mut cols: Vec<Vec<Cyclo>> = Vec::new();
-        for (o, a) in ir.mats.iter().enumerate() {
-            if ops.len() == d {
-                break;
-            }
-            let col: Vec<Cyclo> = (0..d).map(|i| a[i][0].clone()).collect();
+        Self::pick(ir, |o| {
+            let col: Vec<Cyclo> = (0..d).map(|i| ir.mats[o][i][0].clone()).collect();
             let dependent = !cols.is_empty() && solve_field(&cols, &col).is_some();
-            if !dependent && col.iter().any(|c| !c.is_zero()) {
-                ops.push(o);
+            let kept = !dependent && col.iter().any(|c| !c.is_zero());
+            if kept {
                 cols.push(col);
             }
-        }
-        ops
+            kept
+        })
     }
 
     /// M⁻¹ for the chosen operations; `None` when their first columns are dependent.
