@@ -45,7 +45,7 @@ impl ImageIndex {
     }
 }
 
-/// A basis's operation images over one field: `cols[op][m]` lists (k, index into `table`).
+/// A basis's operation images over one field: `cols.col(op, m)` lists (k, index into `table`).
 pub(super) struct FastBasis<I = i128> {
     pub f: Arc<KField>,
     table: KTable<I>,
