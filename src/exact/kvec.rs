@@ -465,20 +465,26 @@ impl KField {
 
 /// A field number nums/den with the numerators' and the denominator's gcd divided out.
 fn lowest_scalar<I: KInt>(mut nums: Vec<I>, den: I) -> (Vec<I>, I) {
-    let mut g = den.gcd(&I::zero());
-    for x in &nums {
-        if g.is_one() {
-            return (nums, den);
-        }
-        if !x.is_zero() {
-            g = g.gcd(x);
-        }
-    }
+    let g = gcd_of(std::iter::once(&den).chain(&nums));
     if g.is_one() || g.is_zero() {
         return (nums, den);
     }
     I::div_exact_all(&mut nums, &g);
     (nums, den.div_exact(&g))
+}
+
+/// gcd of the nonzero integers (0 when there are none), stopping once it reaches 1.
+pub fn gcd_of<'a, I: KInt + 'a>(xs: impl IntoIterator<Item = &'a I>) -> I {
+    let mut g = I::zero();
+    for t in xs {
+        if !t.is_zero() {
+            g = g.gcd(t);
+            if g.is_one() {
+                break;
+            }
+        }
+    }
+    g
 }
 
 /// A vector of `len` entries of one field over one positive denominator.
@@ -554,15 +560,7 @@ impl<I: KInt> KVec<I> {
 
     /// Divide numerators and denominator by their gcd.
     pub fn lowest_terms(&mut self) {
-        let mut g = self.den.gcd(&I::zero());
-        for x in &self.num {
-            if g.is_one() {
-                return;
-            }
-            if !x.is_zero() {
-                g = g.gcd(x);
-            }
-        }
+        let g = gcd_of(std::iter::once(&self.den).chain(&self.num));
         if !g.is_one() && !g.is_zero() {
             I::div_exact_all(&mut self.num, &g);
             self.den = self.den.div_exact(&g);

@@ -20,7 +20,7 @@ mod sqrt;
 mod subfield;
 
 pub use cyclo::{rational_to_f64, Cyclo, CycloKey};
-pub use kvec::{KField, KInt, KTable, KVec, MulMatrix};
+pub use kvec::{gcd_of, KField, KInt, KTable, KVec, MulMatrix};
 pub use linsolve::{solve as solve_rational, solve_field};
 pub use parse::{parse, parse_with_phi, ParseError};
 pub use print::{decimal, format_rational};

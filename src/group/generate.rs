@@ -8,6 +8,7 @@
 
 use super::matrix::{self, Mat3};
 use super::table::{CharacterTable, OpSpec, Turn};
+use super::OpLookup;
 use crate::exact::Cyclo;
 use nalgebra::Matrix3;
 
@@ -51,30 +52,6 @@ pub fn op_matrix(spec: &OpSpec) -> Result<Mat3, String> {
     Ok(matrix::shrink(&m))
 }
 
-const TOL: f64 = 1e-6;
-
-fn same(a: &Matrix3<f64>, b: &Matrix3<f64>) -> bool {
-    (a - b).abs().max() < TOL
-}
-
-/// Operations found so far, by their rounded entries ([`super::op_key`]): a lookup instead of a
-/// scan of every operation (Ih's closure and classes made 150,000 matrix comparisons). A key
-/// miss next to a rounding boundary falls back to the scan, so nothing is ever missed.
-#[derive(Default)]
-struct Lookup(crate::exact::QuickMap<[i32; 9], usize>);
-
-impl Lookup {
-    fn add(&mut self, m: &Matrix3<f64>, at: usize) {
-        self.0.entry(super::op_key(m)).or_insert(at);
-    }
-    fn find(&self, all: &[Matrix3<f64>], m: &Matrix3<f64>) -> Option<usize> {
-        match self.0.get(&super::op_key(m)) {
-            Some(&i) if same(&all[i], m) => Some(i),
-            _ => all.iter().position(|q| same(q, m)),
-        }
-    }
-}
-
 /// Generate all operations and their classes. Errors describe what does not match the table.
 pub fn generate(table: &CharacterTable) -> Result<Vec<SymOp>, String> {
     let order = table
@@ -89,14 +66,14 @@ pub fn generate(table: &CharacterTable) -> Result<Vec<SymOp>, String> {
     // Closure.
     let mut exact: Vec<Mat3> = vec![matrix::identity()];
     let mut float: Vec<Matrix3<f64>> = vec![Matrix3::identity()];
-    let mut keys = Lookup::default();
+    let mut keys = OpLookup::default();
     keys.add(&float[0], 0);
     let mut frontier = 0;
     while frontier < float.len() {
         let (fx, ex) = (float[frontier], exact[frontier].clone());
         for (g, ge) in rep_f.iter().zip(&reps) {
             let p = g * fx;
-            if keys.find(&float, &p).is_none() {
+            if keys.find(&p, float.len(), |i| float[i]).is_none() {
                 keys.add(&p, float.len());
                 float.push(p);
                 exact.push(matrix::shrink(&matrix::mul(ge, &ex)));
@@ -116,7 +93,7 @@ pub fn generate(table: &CharacterTable) -> Result<Vec<SymOp>, String> {
         ));
     }
     // Conjugacy classes.
-    let find = |m: &Matrix3<f64>| keys.find(&float, m);
+    let find = |m: &Matrix3<f64>| keys.find(m, float.len(), |i| float[i]);
     let mut class_of = vec![usize::MAX; order];
     for (k, rf) in rep_f.iter().enumerate() {
         let idx = find(rf).ok_or("a representative is not in the group")?;

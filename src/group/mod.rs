@@ -43,14 +43,40 @@ pub struct PointGroup {
     pub ops: Vec<SymOp>,
     products: OnceLock<Vec<Vec<usize>>>,
     inverses: OnceLock<Vec<usize>>,
-    by_key: OnceLock<QuickMap<[i32; 9], usize>>,
+    by_key: OnceLock<OpLookup>,
 }
 
 /// A hash key for an operation matrix: entries rounded to 1/1000 (the entries of point-group
 /// operations are cosines and sines of whole fractions of a turn, never near a rounding
 /// boundary of this grid in practice; a miss falls back to a full search).
-pub(crate) fn op_key(m: &Matrix3<f64>) -> [i32; 9] {
+fn op_key(m: &Matrix3<f64>) -> [i32; 9] {
     std::array::from_fn(|k| (m[(k / 3, k % 3)] * 1000.0).round() as i32)
+}
+
+/// Operations by their rounded matrices ([`op_key`]): a lookup instead of a scan of every
+/// operation; a key miss next to a rounding boundary falls back to the scan, so nothing is
+/// ever missed. Used for a group's operations and while generating them.
+#[derive(Debug, Default)]
+pub(crate) struct OpLookup(QuickMap<[i32; 9], usize>);
+
+impl OpLookup {
+    /// Record operation `at` (the first one recorded wins a key).
+    pub(crate) fn add(&mut self, m: &Matrix3<f64>, at: usize) {
+        self.0.entry(op_key(m)).or_insert(at);
+    }
+    /// The index of the operation within 1e-6 of `m` among the `n` operations `float(i)`.
+    pub(crate) fn find(
+        &self,
+        m: &Matrix3<f64>,
+        n: usize,
+        float: impl Fn(usize) -> Matrix3<f64>,
+    ) -> Option<usize> {
+        let near = |i: usize| (float(i) - m).abs().max() < 1e-6;
+        match self.0.get(&op_key(m)) {
+            Some(&i) if near(i) => Some(i),
+            _ => (0..n).find(|&i| near(i)),
+        }
+    }
 }
 
 impl PointGroup {
@@ -93,26 +119,14 @@ impl PointGroup {
     }
     /// Index of the operation with this floating-point matrix (tolerance 1e-6).
     pub fn op_index(&self, m: &Matrix3<f64>) -> Option<usize> {
-        if let Some(&o) = self.lookup().get(&op_key(m)) {
-            if (self.ops[o].float - m).abs().max() < 1e-6 {
-                return Some(o);
-            }
-        }
-        // an entry next to a rounding boundary of the key: look through every operation
-        self.ops
-            .iter()
-            .position(|o| (o.float - m).abs().max() < 1e-6)
-    }
-    /// Operations by their rounded matrices (see [`op_key`]), built once.
-    fn lookup(&self) -> &QuickMap<[i32; 9], usize> {
-        self.by_key.get_or_init(|| {
-            let mut map = QuickMap::default();
-            map.reserve(self.ops.len());
+        let lookup = self.by_key.get_or_init(|| {
+            let mut map = OpLookup::default();
             for (i, o) in self.ops.iter().enumerate() {
-                map.entry(op_key(&o.float)).or_insert(i);
+                map.add(&o.float, i);
             }
             map
-        })
+        });
+        lookup.find(m, self.ops.len(), |i| self.ops[i].float)
     }
     /// Multiplication table: `product(a, b)` = index of ops[a]·ops[b].
     pub fn product(&self, a: usize, b: usize) -> usize {

@@ -11,7 +11,7 @@ use super::fast::{common_field, field_lcm, FastBasis, FastIrrep, Images};
 use super::irreps::{real_irreps, IrrepError, Matrix, RealIrrep};
 use super::project::{inverses, partner_one_images, transfer};
 use crate::basis::{Basis, Member};
-use crate::exact::{field_candidates, solve_field, Cyclo, FieldSpec, KField, KInt, KVec};
+use crate::exact::{field_candidates, gcd_of, solve_field, Cyclo, FieldSpec, KField, KInt, KVec};
 use crate::group::PointGroup;
 use num_bigint::BigInt;
 use num_rational::BigRational;
@@ -512,7 +512,7 @@ fn partner_ones(job: &Job) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
     Ok(found)
 }
 
-/// The partner tuples of an irrep: partners, their lengths² when known, role.
+/// The partner tuples of an irrep, in their shown form, with their role.
 type Tuples = Vec<(Shown, Role)>;
 
 /// One SALC's partners in their shown form, each with its length².
@@ -762,10 +762,13 @@ impl PartnerRecipe {
         // column keeps a part above 10⁻⁶ of its length; the entries are O(1), so such columns
         // are independent exactly too); the exact inverse below checks it, and where it does
         // not hold the operations are picked on exact numbers instead.
-        let ops = Self::pick_float(ir)
-            .filter(|ops| Self::inverse_of(ir, ops).is_some())
-            .unwrap_or_else(|| Self::pick_exact(ir));
-        let minv = Self::inverse_of(ir, &ops).expect("chosen columns are independent");
+        let on_floats =
+            Self::pick_float(ir).and_then(|ops| Self::inverse_of(ir, &ops).map(|minv| (ops, minv)));
+        let (ops, minv) = on_floats.unwrap_or_else(|| {
+            let ops = Self::pick_exact(ir);
+            let minv = Self::inverse_of(ir, &ops).expect("chosen columns are independent");
+            (ops, minv)
+        });
         PartnerRecipe { ops, minv }
     }
 
@@ -938,20 +941,6 @@ fn shown(v: Vec<Cyclo>, sign: i64, norm2: Option<Cyclo>) -> (Vec<Cyclo>, Cyclo) 
     };
     let w = if r.is_one() { v } else { scale_rational(v, &r) };
     (w, n2)
-}
-
-/// gcd of the nonzero integers (0 when there are none), stopping once it reaches 1.
-fn gcd_of<'a, I: KInt + 'a>(xs: impl Iterator<Item = &'a I>) -> I {
-    let mut g = I::zero();
-    for t in xs {
-        if !t.is_zero() {
-            g = g.gcd(t);
-            if g.is_one() {
-                break;
-            }
-        }
-    }
-    g
 }
 
 #[cfg(test)]

@@ -257,23 +257,13 @@ fn from_product_with_1d(
             if (0..chars.len()).any(|o| chars[o] != &lchars[o] * &ychars[o]) {
                 continue;
             }
-            // χ_L(R) = ±1 for the rational one-dimensional L: a copy or a negation per entry
             let mats = y
                 .mats
                 .iter()
                 .zip(&lchars)
                 .map(|(m, s)| {
-                    let sign = s.to_i64();
                     m.iter()
-                        .map(|r| {
-                            r.iter()
-                                .map(|x| match sign {
-                                    Some(1) => x.clone(),
-                                    Some(-1) => -x,
-                                    _ => x * s,
-                                })
-                                .collect()
-                        })
+                        .map(|r| r.iter().map(|x| x * s).collect())
                         .collect()
                 })
                 .collect();
