@@ -266,14 +266,8 @@ fn basis_of(st: &Structure, set: &MemberSet) -> Result<Basis, String> {
             closed_atoms(st, &atoms, set)?;
             let mut b = basis::cartesian(st).restricted(&atoms);
             if set.kind == SetKind::Axial {
-                for (o, cols) in b.images.iter_mut().enumerate() {
-                    let d: Cyclo = mat_det(&st.group.ops[o].matrix);
-                    for col in cols.iter_mut() {
-                        for (_, c) in col.iter_mut() {
-                            *c = &*c * &d;
-                        }
-                    }
-                }
+                let det = |o: usize| -> Cyclo { mat_det(&st.group.ops[o].matrix) };
+                b.images = std::sync::Arc::new(b.images.scaled_per_op(det));
                 b.kind = BasisKind::Rotations;
                 for m in &mut b.members {
                     if let Some(ax) = &mut m.axis {
@@ -296,14 +290,7 @@ fn basis_of(st: &Structure, set: &MemberSet) -> Result<Basis, String> {
                         .collect()
                 })
                 .collect();
-            let images = site_perm
-                .iter()
-                .map(|p| {
-                    p.iter()
-                        .map(|&k| smallvec::smallvec![(k, Cyclo::one())])
-                        .collect()
-                })
-                .collect();
+            let images = std::sync::Arc::new(basis::permutation_images(atoms.len(), &site_perm));
             Ok(Basis {
                 kind: BasisKind::Sigma,
                 group: st.group.clone(),

@@ -5,6 +5,7 @@
 //! sites a class's operation leaves in place, Cotton, 3rd ed., §10.2) and the exact reduction.
 //! Members are taken as orthonormal: every action built here is an orthogonal matrix.
 
+use super::images::Images;
 use super::BasisError;
 use crate::exact::Cyclo;
 use crate::group::PointGroup;
@@ -81,8 +82,8 @@ pub struct Basis {
     pub sites: Vec<String>,
     /// `site_perm[op][s]` = the site operation `op` carries site `s` onto.
     pub site_perm: Vec<Vec<usize>>,
-    /// `images[op][m]` = operation `op` applied to member `m`.
-    pub images: Vec<Vec<Column>>,
+    /// Operation `op` applied to member `m`: `images.col(op, m)`.
+    pub images: Arc<Images>,
     /// How the members' local frames were chosen, where that matters (π pairs).
     pub notes: Vec<String>,
 }
@@ -112,9 +113,9 @@ impl Basis {
             reps.iter()
                 .map(|&op| {
                     let mut t = Cyclo::zero();
-                    for (m, col) in self.images[op].iter().enumerate() {
-                        for (k, c) in col {
-                            if *k == m {
+                    for m in 0..self.dim() {
+                        for (k, c) in self.images.col(op, m) {
+                            if k == m {
                                 t += c;
                             }
                         }
@@ -161,8 +162,8 @@ impl Basis {
             if x.is_zero() {
                 continue;
             }
-            for (k, c) in &self.images[op][m] {
-                out[*k] += &(c * x);
+            for (k, c) in self.images.col(op, m) {
+                out[k] += &(c * x);
             }
         }
         out
@@ -205,21 +206,7 @@ impl Basis {
                 ..self.members[m].clone()
             })
             .collect();
-        let images = self
-            .images
-            .iter()
-            .map(|cols| {
-                keep_members
-                    .iter()
-                    .map(|&m| {
-                        cols[m]
-                            .iter()
-                            .map(|(k, c)| (new_member[*k], c.clone()))
-                            .collect()
-                    })
-                    .collect()
-            })
-            .collect();
+        let images = Arc::new(self.images.restricted(&keep_members, &new_member));
         let site_perm = self
             .site_perm
             .iter()
@@ -238,26 +225,13 @@ impl Basis {
 
     /// Direct sum of two bases of the same group (members of `other` follow those of `self`).
     pub fn joined(&self, other: &Basis) -> Basis {
-        let nm = self.members.len();
         let ns = self.sites.len();
         let mut members = self.members.clone();
         members.extend(other.members.iter().map(|m| Member {
             site: m.site + ns,
             ..m.clone()
         }));
-        let images = self
-            .images
-            .iter()
-            .zip(&other.images)
-            .map(|(a, b)| {
-                let mut cols = a.clone();
-                cols.extend(
-                    b.iter()
-                        .map(|col| col.iter().map(|(k, c)| (k + nm, c.clone())).collect()),
-                );
-                cols
-            })
-            .collect();
+        let images = Arc::new(self.images.joined(&other.images));
         let site_perm = self
             .site_perm
             .iter()

@@ -5,12 +5,14 @@
 //! Wilson, Decius & Cross, *Molecular Vibrations*, ch. 6). Linear molecules have 3N − 5
 //! vibrations and are reduced in C2v/D2h, then correlated back to C∞v/D∞h.
 
-use super::action::{class_representatives, Basis, BasisKind, Column, Member};
+use super::action::{class_representatives, Basis, BasisKind, Member};
+use super::images::ImagesBuilder;
 use super::structure::Structure;
 use super::BasisError;
 use crate::exact::Cyclo;
 use crate::group::{mat_det, mat_trace, PointGroup};
 use crate::rep::{self, Character};
+use std::sync::Arc;
 
 const AXES: [&str; 3] = ["x", "y", "z"];
 
@@ -27,34 +29,29 @@ pub fn cartesian(s: &Structure) -> Basis {
             });
         }
     }
-    // (the operations' images are independent: built side by side; C60's 64,800 exact
-    // entries took 3 ms on one core)
-    use rayon::prelude::*;
-    let images = s
-        .group
-        .ops
-        .par_iter()
-        .enumerate()
-        .map(|(o, op)| {
-            let mut cols = Vec::with_capacity(3 * s.len());
-            let nonzero: [usize; 3] =
-                std::array::from_fn(|j| (0..3).filter(|&i| !op.matrix[i][j].is_zero()).count());
-            for a in 0..s.len() {
-                let b = s.perm[o][a];
-                for (j, &terms) in nonzero.iter().enumerate() {
-                    // sized once: a column that grew term by term cost two allocations
-                    let mut col = Column::with_capacity(terms);
-                    for i in 0..3 {
-                        if !op.matrix[i][j].is_zero() {
-                            col.push((3 * b + i, op.matrix[i][j].clone()));
-                        }
+    // each operation's matrix entries are numbered once; the images are then integer pairs
+    let mut b = ImagesBuilder::new(3 * s.len());
+    b.reserve(s.group.order(), 1);
+    for (o, op) in s.group.ops.iter().enumerate() {
+        let ids: [[Option<u32>; 3]; 3] = std::array::from_fn(|i| {
+            std::array::from_fn(|j| {
+                (!op.matrix[i][j].is_zero()).then(|| b.number(&op.matrix[i][j]))
+            })
+        });
+        for a in 0..s.len() {
+            let to = s.perm[o][a];
+            for j in 0..3 {
+                for (i, row) in ids.iter().enumerate() {
+                    if let Some(x) = row[j] {
+                        b.push(3 * to + i, x);
                     }
-                    cols.push(col);
                 }
+                b.end_column();
             }
-            cols
-        })
-        .collect();
+        }
+        b.end_op();
+    }
+    let images = Arc::new(b.finish());
     Basis {
         kind: BasisKind::Cartesian,
         group: s.group.clone(),
@@ -76,26 +73,24 @@ fn triple(s: &Structure, kind: BasisKind, prefix: &str, axial: bool) -> Basis {
             site: 0,
         })
         .collect();
-    let images = s
-        .group
-        .ops
-        .iter()
-        .map(|op| {
-            let d = if axial {
-                mat_det(&op.matrix)
-            } else {
-                Cyclo::one()
-            };
-            (0..3)
-                .map(|j| {
-                    (0..3)
-                        .filter(|&i| !op.matrix[i][j].is_zero())
-                        .map(|i| (i, &op.matrix[i][j] * &d))
-                        .collect()
-                })
-                .collect()
-        })
-        .collect();
+    let mut b = ImagesBuilder::new(3);
+    for op in &s.group.ops {
+        let d = if axial {
+            mat_det(&op.matrix)
+        } else {
+            Cyclo::one()
+        };
+        for j in 0..3 {
+            for i in 0..3 {
+                if !op.matrix[i][j].is_zero() {
+                    b.push_number(i, &(&op.matrix[i][j] * &d));
+                }
+            }
+            b.end_column();
+        }
+        b.end_op();
+    }
+    let images = Arc::new(b.finish());
     Basis {
         kind,
         group: s.group.clone(),

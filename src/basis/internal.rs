@@ -6,9 +6,11 @@
 //! symmetry-equivalent bonds; every angle between two bonds sharing an atom.
 
 use super::action::{Basis, BasisKind, Member};
+use super::images::permutation_images;
 use super::structure::{orbits, Structure};
 use super::BasisError;
-use crate::exact::{Cyclo, QuickMap};
+use crate::exact::QuickMap;
+use std::sync::Arc;
 
 /// A named set of symmetry-equivalent sites (bonds or angles).
 #[derive(Debug, Clone, PartialEq, Eq)]
@@ -82,14 +84,7 @@ fn scalar_basis(
     sites: Vec<String>,
     site_perm: Vec<Vec<usize>>,
 ) -> Basis {
-    let images = site_perm
-        .iter()
-        .map(|p| {
-            p.iter()
-                .map(|&k| smallvec::smallvec![(k, Cyclo::one())])
-                .collect()
-        })
-        .collect();
+    let images = Arc::new(permutation_images(members.len(), &site_perm));
     Basis {
         kind,
         group: s.group.clone(),

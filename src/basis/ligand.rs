@@ -8,10 +8,12 @@
 //! about the bond, and the frame is built from its exact rotation axis and mirror normal.
 
 use super::action::{Basis, BasisKind, Member};
+use super::images::{permutation_images, ImagesBuilder};
 use super::structure::{orbits, Structure};
 use super::BasisError;
 use crate::exact::{sqrt, Cyclo};
 use crate::group::{Mat3, PointGroup};
+use std::sync::Arc;
 
 type Vec3 = [Cyclo; 3];
 
@@ -89,14 +91,7 @@ pub fn sigma(s: &Structure, centre: usize, ligands: &[usize]) -> Result<Basis, B
             site: k,
         })
         .collect();
-    let images = site_perm
-        .iter()
-        .map(|p| {
-            p.iter()
-                .map(|&k| smallvec::smallvec![(k, Cyclo::one())])
-                .collect()
-        })
-        .collect();
+    let images = Arc::new(permutation_images(ligands.len(), &site_perm));
     Ok(Basis {
         kind: BasisKind::Sigma,
         group: s.group.clone(),
@@ -349,9 +344,8 @@ pub fn pi(s: &Structure, centre: usize, ligands: &[usize]) -> Result<Basis, Basi
             v(b)
         ));
     }
-    let mut images = Vec::with_capacity(g.order());
+    let mut images = ImagesBuilder::new(2 * n);
     for o in 0..g.order() {
-        let mut cols = Vec::with_capacity(2 * n);
         for k in 0..n {
             let k2 = site_perm[o][k];
             let sop = g.product(g.inverse(carrier[k2]), g.product(o, carrier[k]));
@@ -363,16 +357,17 @@ pub fn pi(s: &Structure, centre: usize, ligands: &[usize]) -> Result<Basis, Basi
                 .expect("s lies in the site group")
                 .1;
             for j in 0..2 {
-                cols.push(
-                    (0..2)
-                        .filter(|&i| !d[i][j].is_zero())
-                        .map(|i| (2 * k2 + i, d[i][j].clone()))
-                        .collect(),
-                );
+                for i in 0..2 {
+                    if !d[i][j].is_zero() {
+                        images.push_number(2 * k2 + i, &d[i][j]);
+                    }
+                }
+                images.end_column();
             }
         }
-        images.push(cols);
+        images.end_op();
     }
+    let images = Arc::new(images.finish());
     let mut members = Vec::with_capacity(2 * n);
     for (k, &l) in ligands.iter().enumerate() {
         for ax in ["a", "b"] {

@@ -2,13 +2,14 @@
 //! translations and rotations, bond stretches, angle bends, ligand σ and π vectors, p orbitals
 //! of planar π systems and central-atom orbitals.
 //!
-//! Owns, per basis, the exact sparse action `images[op][member]`, the unmoved grid, the
+//! Owns, per basis, the exact sparse action (`images.col(op, member)`), the unmoved grid, the
 //! characters and their exact reduction; Γvib and the redundancy of internal coordinates.
 //! Refuses to know how SALCs are built (`salc`) or how geometry is read and oriented (`geom`):
 //! it starts from a [`Structure`] already standing in the group's standard orientation.
 
 mod action;
 mod cartesian;
+mod images;
 mod internal;
 mod ligand;
 mod orbitals;
@@ -20,6 +21,7 @@ pub use action::{class_representatives, Basis, BasisKind, Column, Member};
 pub use cartesian::{
     cartesian, rotations, translations, vibrations, vibrations_linear, Vibrations,
 };
+pub use images::{permutation_images, Images, ImagesBuilder};
 pub use internal::{all_angles, angle_sets, bends, bond_sets, stretches, Angle, SiteSet};
 pub use ligand::{default_ligands, pi, sigma};
 pub use orbitals::{

@@ -4,9 +4,11 @@
 //! the plane onto itself, so R·n = ±n and R carries p_a to ±p_R(a) (Cotton, 3rd ed., §10.4).
 
 use super::action::{Basis, BasisKind, Member};
+use super::images::ImagesBuilder;
 use super::structure::Structure;
 use super::BasisError;
 use crate::exact::Cyclo;
+use std::sync::Arc;
 
 /// p⊥ orbitals on `atoms` (all must lie in one plane through the origin).
 pub fn p_perp(s: &Structure, atoms: &[usize]) -> Result<Basis, BasisError> {
@@ -41,7 +43,7 @@ pub fn p_perp(s: &Structure, atoms: &[usize]) -> Result<Basis, BasisError> {
         .expect("a mirror has a normal");
     let nn: Cyclo = n.iter().map(|x| x * x).sum();
     let mut site_perm = Vec::with_capacity(g.order());
-    let mut images = Vec::with_capacity(g.order());
+    let mut images = ImagesBuilder::new(atoms.len());
     for (o, op) in g.ops.iter().enumerate() {
         // ε = n·(R n)/|n|²
         let rn: Vec<Cyclo> = (0..3)
@@ -49,7 +51,7 @@ pub fn p_perp(s: &Structure, atoms: &[usize]) -> Result<Basis, BasisError> {
             .collect();
         let eps = &(0..3).map(|i| &n[i] * &rn[i]).sum::<Cyclo>() / &nn;
         let mut row = Vec::with_capacity(atoms.len());
-        let mut cols = Vec::with_capacity(atoms.len());
+        let e = images.number(&eps);
         for &a in atoms {
             let img = s.perm[o][a];
             let k = atoms
@@ -61,10 +63,11 @@ pub fn p_perp(s: &Structure, atoms: &[usize]) -> Result<Basis, BasisError> {
                     image: s.label(img),
                 })?;
             row.push(k);
-            cols.push(smallvec::smallvec![(k, eps.clone())]);
+            images.push(k, e);
+            images.end_column();
         }
         site_perm.push(row);
-        images.push(cols);
+        images.end_op();
     }
     Ok(Basis {
         kind: BasisKind::PPerp,
@@ -81,7 +84,7 @@ pub fn p_perp(s: &Structure, atoms: &[usize]) -> Result<Basis, BasisError> {
             .collect(),
         sites: atoms.iter().map(|&a| s.label(a)).collect(),
         site_perm,
-        images,
+        images: Arc::new(images.finish()),
         notes: vec![format!(
             "p orbitals along the normal of the molecular plane {}",
             g.ops[plane].name

@@ -573,7 +573,10 @@ impl<I: KInt> KVec<I> {
         Some(f.cyclo_of(&n, &d))
     }
 
-    /// Σ aᵢbᵢ as a number of the field (numerators, denominator; not reduced).
+    /// Σ aᵢbᵢ as a number of the field (numerators, denominator), in lowest terms: the sum
+    /// shares a large factor with the product of denominators (half its bits in Gram–Schmidt
+    /// of the chiral icosahedral model), and dividing it out here keeps the next product
+    /// within 128 bits.
     pub fn dot_in(&self, other: &KVec<I>, f: &KField) -> Option<(Vec<I>, I)> {
         let phi = f.phi;
         let mut acc = vec![I::zero(); phi];
@@ -583,7 +586,7 @@ impl<I: KInt> KVec<I> {
             }
             f.mul_acc(&mut acc, a, b)?;
         }
-        Some((acc, self.den.mul(&other.den)?))
+        Some(lowest_scalar(acc, self.den.mul(&other.den)?))
     }
 
     /// self − s·other for a field number s.

@@ -371,6 +371,14 @@ mod vectors_agree {
         prop_assert!(ka.to_cyclos(&f) == a);
         let d = ka.dot(&kb, &f);
         prop_assert!(d.is_some() || !never_declines, "dot declined");
+        if let Some((dn, dd)) = ka.dot_in(&kb, &f) {
+            // in lowest terms: the next product (Gram–Schmidt's scalar) stays within 128 bits
+            let g = super::super::gcd_of(std::iter::once(&dd).chain(&dn));
+            prop_assert!(
+                g.is_one(),
+                "dot product not in lowest terms: {dn:?} / {dd:?}"
+            );
+        }
         if let Some(d) = d {
             let exact: Cyclo = a.iter().zip(b).map(|(x, y)| x * y).sum();
             prop_assert!(d == exact);

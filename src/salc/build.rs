@@ -7,7 +7,7 @@
 //! other partners follow from R·s₁ = Σᵢ sᵢ·D(R)ᵢ₁ for d operations with independent columns,
 //! which costs d applications of R instead of a sum over the group.
 
-use super::fast::{common_field, field_lcm, FastBasis, FastIrrep, Images};
+use super::fast::{common_field, field_lcm, FastBasis, FastIrrep};
 use super::irreps::{real_irreps, IrrepError, Matrix, RealIrrep};
 use super::project::{inverses, partner_one_images, transfer};
 use crate::basis::{Basis, Member};
@@ -252,14 +252,11 @@ pub fn salcs_on(
         .and_then(|()| {
             common_field(
                 b.images
+                    .numbers()
                     .iter()
-                    .flatten()
-                    .flatten()
-                    .map(|(_, c)| c)
                     .chain(presets.iter().flat_map(|s| s.vector.iter())),
             )
         });
-    let images = Images::new(b);
     let mut fast_bases: HashMap<FieldSpec, Option<FastBasis>> = HashMap::new();
     let mut fast_presets: HashMap<FieldSpec, Option<Vec<KVec>>> = HashMap::new();
     // First, per irrep, the smallest field holding the basis images, the irrep's matrices and
@@ -288,7 +285,7 @@ pub fn salcs_on(
         for candidate in home.map(field_candidates).unwrap_or_default() {
             let fb = fast_bases
                 .entry(candidate.clone())
-                .or_insert_with(|| FastBasis::new(&images, &candidate));
+                .or_insert_with(|| FastBasis::new(&b.images, &candidate));
             let Some(fb) = fb.as_ref() else { continue };
             let Some(fi) = FastIrrep::cached(&b.group, ir, &recipe.minv, &candidate) else {
                 continue;
@@ -331,7 +328,7 @@ pub fn salcs_on(
             }
             if quick.is_none() {
                 // 128 bits overflowed: the same steps on big integers over the same field
-                let fb = FastBasis::<BigInt>::new(&images, spec);
+                let fb = FastBasis::<BigInt>::new(&b.images, spec);
                 let fi = fb
                     .as_ref()
                     .and_then(|fb| FastIrrep::<BigInt>::new(&fb.f, ir, &recipe.minv));

@@ -6,7 +6,7 @@
 //! the irrep on big integers.
 
 use super::irreps::{Matrix, RealIrrep};
-use crate::basis::Basis;
+use crate::basis::Images;
 use crate::exact::{Cyclo, CycloKey, FieldSpec, KField, KInt, KTable, KVec, MulMatrix, QuickMap};
 use crate::group::PointGroup;
 use std::collections::HashMap;
@@ -15,91 +15,15 @@ use std::sync::{Arc, Mutex, OnceLock};
 /// Largest field degree φ(n) worth the integer form (every molecular table is far below).
 pub(super) const MAX_PHI: usize = 24;
 
-/// Distinct numbers per operation looked up without hashing.
-const RECENT: usize = 12;
-
-/// The (k, index of the number) pairs of R_op·e_m for every operation and member, held in one
-/// flat list (one allocation per basis, not one per image).
-pub(super) struct ImageIndex {
-    pairs: Vec<(usize, usize)>,
-    /// `start[op·dim + m]` … `start[op·dim + m + 1]`: the pairs of R_op·e_m.
-    start: Vec<usize>,
-    dim: usize,
-}
-
-impl ImageIndex {
-    /// The pairs of R_op·e_m.
-    #[inline]
-    fn col(&self, op: usize, m: usize) -> &[(usize, usize)] {
-        let at = op * self.dim + m;
-        &self.pairs[self.start[at]..self.start[at + 1]]
-    }
-
-    /// The images R_op·e_m of every member m, in order.
-    fn op(&self, op: usize) -> impl Iterator<Item = &[(usize, usize)]> {
-        (0..self.dim).map(move |m| self.col(op, m))
-    }
-
-    fn ops(&self) -> usize {
-        (self.start.len() - 1).checked_div(self.dim).unwrap_or(0)
-    }
-}
-
-/// A basis's operation images over one field: `cols.col(op, m)` lists (k, index into `table`).
+/// A basis's operation images over one field: the terms of `images.raw(op, m)` index the
+/// distinct numbers of `table` (and `mats`).
 pub(super) struct FastBasis<I = i128> {
     pub f: Arc<KField>,
     table: KTable<I>,
     /// Each distinct number of `table` as a multiplication matrix.
     mats: Vec<MulMatrix<I>>,
-    cols: Arc<ImageIndex>,
+    images: Arc<Images>,
     dim: usize,
-}
-
-/// A basis's operation images as indices into their distinct numbers, worked out once per
-/// basis and shared by its [`FastBasis`] over each field tried: the images repeat a few numbers
-/// (an operation's matrix entries, ±1) many times, and each is converted once.
-pub(super) struct Images<'a> {
-    entries: Vec<&'a Cyclo>,
-    cols: Arc<ImageIndex>,
-    dim: usize,
-}
-
-impl<'a> Images<'a> {
-    pub fn new(b: &'a Basis) -> Images<'a> {
-        let mut entries: Vec<&Cyclo> = Vec::new();
-        let mut seen: QuickMap<CycloKey, usize> = QuickMap::default();
-        // one operation's images hold few distinct numbers (a Cartesian basis: its 3×3 matrix
-        // entries): those are looked up in a short list first, the map only when new
-        let mut recent: Vec<(&Cyclo, usize)> = Vec::with_capacity(RECENT);
-        let dim = b.dim();
-        let mut pairs = Vec::with_capacity(b.images.len() * dim);
-        let mut start = Vec::with_capacity(b.images.len() * dim + 1);
-        start.push(0);
-        for op in &b.images {
-            recent.clear();
-            for col in op {
-                for (k, c) in col {
-                    let i = match recent.iter().find(|(x, _)| x.same_form(c)) {
-                        Some(&(_, i)) => i,
-                        None => {
-                            let i = distinct_index(&mut seen, &mut entries, c);
-                            if recent.len() < RECENT {
-                                recent.push((c, i));
-                            }
-                            i
-                        }
-                    };
-                    pairs.push((*k, i));
-                }
-                start.push(pairs.len());
-            }
-        }
-        Images {
-            entries,
-            cols: Arc::new(ImageIndex { pairs, start, dim }),
-            dim,
-        }
-    }
 }
 
 /// The index of `c` among the distinct numbers `entries` (added when new).
@@ -134,22 +58,22 @@ pub(super) fn field_lcm(a: u32, b: u32) -> Option<u32> {
 
 impl<I: KInt> FastBasis<I> {
     /// The basis over a field holding every image entry (`None` if one is not in it).
-    pub fn new(im: &Images, spec: &FieldSpec) -> Option<FastBasis<I>> {
+    pub fn new(images: &Arc<Images>, spec: &FieldSpec) -> Option<FastBasis<I>> {
         let f = KField::of(spec)?;
         if f.phi() > MAX_PHI {
             return None;
         }
-        let table = KTable::from_cyclos(&f, im.entries.iter().copied())?;
+        let table = KTable::from_cyclos(&f, images.numbers().iter())?;
         let phi = f.phi();
-        let mats = (0..im.entries.len())
+        let mats = (0..images.numbers().len())
             .map(|i| f.mul_matrix(table.at(i, phi)))
             .collect::<Option<_>>()?;
         Some(FastBasis {
             f,
             table,
             mats,
-            cols: im.cols.clone(),
-            dim: im.dim,
+            images: images.clone(),
+            dim: images.dim(),
         })
     }
 
@@ -157,14 +81,18 @@ impl<I: KInt> FastBasis<I> {
     fn apply_unreduced(&self, op: usize, v: &KVec<I>) -> Option<KVec<I>> {
         let phi = self.f.phi();
         let mut out = KVec::zero(self.dim, phi);
-        for (m, col) in self.cols.op(op).enumerate() {
+        for m in 0..self.dim {
             let x = v.entry(m, phi);
             if x.iter().all(I::is_zero) {
                 continue;
             }
-            for &(k, i) in col {
-                self.f
-                    .mul_acc_by(&mut out.num[k * phi..(k + 1) * phi], &self.mats[i], x)?;
+            for &(k, i) in self.images.raw(op, m) {
+                let k = k as usize;
+                self.f.mul_acc_by(
+                    &mut out.num[k * phi..(k + 1) * phi],
+                    &self.mats[i as usize],
+                    x,
+                )?;
             }
         }
         out.den = self.table.den.mul(&v.den)?;
@@ -254,14 +182,19 @@ impl<I: KInt> FastIrrep<I> {
     ) -> Option<Vec<KVec<I>>> {
         let phi = fb.f.phi();
         let mut out = vec![KVec::zero(fb.dim, phi); self.d];
-        for o in 0..fb.cols.ops() {
+        for o in 0..fb.images.ops() {
             for (k, acc) in out.iter_mut().enumerate() {
                 let f = self.at(inv[o], k, 0, phi);
                 if f.iter().all(I::is_zero) {
                     continue;
                 }
-                for &(t, i) in fb.cols.col(o, m) {
-                    fb.f.mul_acc_by(&mut acc.num[t * phi..(t + 1) * phi], &fb.mats[i], f)?;
+                for &(t, i) in fb.images.raw(o, m) {
+                    let t = t as usize;
+                    fb.f.mul_acc_by(
+                        &mut acc.num[t * phi..(t + 1) * phi],
+                        &fb.mats[i as usize],
+                        f,
+                    )?;
                 }
             }
         }
@@ -278,20 +211,25 @@ impl<I: KInt> FastIrrep<I> {
         let phi = fb.f.phi();
         let mut out = KVec::zero(fb.dim, phi);
         let mut fx = vec![I::zero(); phi];
-        for o in 0..fb.cols.ops() {
+        for o in 0..fb.images.ops() {
             let f = self.at(inv[o], 0, 0, phi);
             if f.iter().all(I::is_zero) {
                 continue;
             }
-            for (m, col) in fb.cols.op(o).enumerate() {
+            for m in 0..fb.dim {
                 let x = v.entry(m, phi);
                 if x.iter().all(I::is_zero) {
                     continue;
                 }
                 fx.iter_mut().for_each(|a| *a = I::zero());
                 fb.f.mul_acc(&mut fx, f, x)?;
-                for &(k, i) in col {
-                    fb.f.mul_acc_by(&mut out.num[k * phi..(k + 1) * phi], &fb.mats[i], &fx)?;
+                for &(k, i) in fb.images.raw(o, m) {
+                    let k = k as usize;
+                    fb.f.mul_acc_by(
+                        &mut out.num[k * phi..(k + 1) * phi],
+                        &fb.mats[i as usize],
+                        &fx,
+                    )?;
                 }
             }
         }

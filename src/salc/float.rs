@@ -12,12 +12,10 @@ pub fn float_salcs(b: &Basis) -> Result<Vec<Vec<f64>>, SalcError> {
     let mult = real_multiplicities(b, &irreps)?;
     let inv = inverses(b);
     let n = b.dim();
-    let images: Vec<Vec<Vec<(usize, f64)>>> = b
-        .images
-        .iter()
-        .map(|cols| {
-            cols.iter()
-                .map(|c| c.iter().map(|(k, x)| (*k, x.re_f64())).collect())
+    let images: Vec<Vec<Vec<(usize, f64)>>> = (0..b.images.ops())
+        .map(|o| {
+            (0..n)
+                .map(|m| b.images.col(o, m).map(|(k, x)| (k, x.re_f64())).collect())
                 .collect()
         })
         .collect();

@@ -26,7 +26,7 @@ pub fn transfer(
     v: &[Cyclo],
 ) -> Vec<Cyclo> {
     let mut out = vec![Cyclo::zero(); v.len()];
-    for (o, cols) in b.images.iter().enumerate() {
+    for o in 0..b.images.ops() {
         let f = &ir.mats[inv[o]][j][i];
         if f.is_zero() {
             continue;
@@ -36,8 +36,8 @@ pub fn transfer(
                 continue;
             }
             let fx = f * x;
-            for (k, c) in &cols[m] {
-                out[*k] += &(c * &fx);
+            for (k, c) in b.images.col(o, m) {
+                out[k] += &(c * &fx);
             }
         }
     }
@@ -48,15 +48,15 @@ pub fn transfer(
 pub fn partner_one_images(b: &Basis, ir: &RealIrrep, inv: &[usize], m: usize) -> Vec<Vec<Cyclo>> {
     let n = b.dim();
     let mut out = vec![vec![Cyclo::zero(); n]; ir.dim];
-    for (o, cols) in b.images.iter().enumerate() {
+    for o in 0..b.images.ops() {
         let a = &ir.mats[inv[o]];
         for (k, acc) in out.iter_mut().enumerate() {
             let f = &a[k][0];
             if f.is_zero() {
                 continue;
             }
-            for (t, c) in &cols[m] {
-                acc[*t] += &(c * f);
+            for (t, c) in b.images.col(o, m) {
+                acc[t] += &(c * f);
             }
         }
     }
@@ -87,7 +87,7 @@ pub fn worked_projection(b: &Basis, ir: &RealIrrep, m: usize) -> Worked {
     let mut lines = Vec::with_capacity(b.group.order());
     for (o, op) in b.group.ops.iter().enumerate() {
         let chi = ir.chi(o);
-        let image = b.images[o][m].clone();
+        let image = b.images.column(o, m);
         if !chi.is_zero() {
             for (k, c) in &image {
                 sum[*k] += &(c * &chi);
