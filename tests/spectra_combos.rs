@@ -121,3 +121,71 @@ fn fundamentals_from_text() {
     let e = salcdesk::spectra::parse_fundamentals("f", "A1 2914\nE x1526\n").unwrap_err();
     assert_eq!((e.line, e.field), (2, 2));
 }
+
+#[test]
+fn every_level_has_the_symmetry_of_its_own_product_in_every_group() {
+    // Each level's symmetry is reduced once per pair of irreps and reused; every level must
+    // still carry the symmetry of its own fundamentals, computed directly (overtone: the
+    // symmetric power; combination: the plain product — Herzberg (1945), ch. II). Every
+    // group, every real irrep twice (so equal and swapped pairs both occur).
+    for name in salcdesk::group::names() {
+        let g = load(name).unwrap();
+        let reals = salcdesk::spectra::real_irreps(&g);
+        let fundamentals: Vec<Fundamental> = reals
+            .iter()
+            .rev()
+            .chain(reals.iter())
+            .map(|r| Fundamental {
+                irrep: r.label.clone(),
+                position_cm: None,
+                name: None,
+            })
+            .collect();
+        let r = predict_combinations(&g, &fundamentals, CombinationOptions::default()).unwrap();
+        let n = fundamentals.len();
+        assert_eq!(r.levels.len(), 2 * n + n * (n - 1) / 2, "{name}");
+        let irrep_of = |k: usize| idx(&g, &r.fundamentals[k].irrep);
+        for l in &r.levels {
+            let direct = match l.kind {
+                LevelKind::Overtone => overtone(&g, irrep_of(l.of[0]), l.of.len() as u32),
+                LevelKind::Combination => combination(&g, irrep_of(l.of[0]), irrep_of(l.of[1])),
+            }
+            .unwrap();
+            assert_eq!(l.symmetry, direct, "{name} {}", l.label);
+        }
+    }
+}
+
+#[test]
+fn too_many_levels_are_refused_unless_narrowed_by_position() {
+    // 450 fundamentals: 900 overtones + 101,025 combinations, beyond the listed maximum.
+    let g = load("C1").unwrap();
+    let many = |position: Option<f64>| -> Vec<Fundamental> {
+        (0..450)
+            .map(|k| Fundamental {
+                irrep: "A".into(),
+                position_cm: position.map(|p| p + k as f64),
+                name: None,
+            })
+            .collect()
+    };
+    let err = predict_combinations(&g, &many(None), CombinationOptions::default()).unwrap_err();
+    let text = err.to_string();
+    assert!(text.contains("450 fundamentals give 101925"), "{text}");
+    assert!(text.contains("upper wavenumber limit"), "{text}");
+    // positions from 1000 to 1449 cm⁻¹ and a limit of 2010 cm⁻¹: only the combinations of
+    // the lowest fundamentals remain (νa + νb ≤ 2010 with a + b ≤ 10 over 1000 + offsets)
+    let opts = CombinationOptions {
+        second_overtones: true,
+        max_cm: Some(2010.0),
+    };
+    let r = predict_combinations(&g, &many(Some(1000.0)), opts).unwrap();
+    assert!(!r.levels.is_empty());
+    assert!(r.levels.iter().all(|l| l.harmonic_cm.unwrap() <= 2010.0));
+    // without the limit, the same positioned list is refused too
+    let open = CombinationOptions {
+        second_overtones: true,
+        max_cm: None,
+    };
+    assert!(predict_combinations(&g, &many(Some(1000.0)), open).is_err());
+}

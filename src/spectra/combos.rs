@@ -187,7 +187,13 @@ pub(crate) fn resolve(
         })
 }
 
-/// Overtones 2ν (and 3ν) of every fundamental and all binary combinations νi + νj.
+/// Most overtone and combination levels listed at once (about 445 fundamentals with second
+/// overtones). Beyond that a list is of no use to read, and it would cost seconds and hundreds
+/// of MB: the caller is asked to narrow it by position instead.
+pub const MAX_LEVELS: usize = 100_000;
+
+/// Overtones 2ν (and 3ν) of every fundamental and all binary combinations νi + νj (at most
+/// [`MAX_LEVELS`] of them).
 pub fn predict_combinations(
     g: &PointGroup,
     fundamentals: &[Fundamental],
@@ -209,14 +215,35 @@ pub fn predict_combinations(
         .collect();
     let resolved: Vec<(usize, String)> = order.iter().map(|&k| resolved[k].clone()).collect();
     let fundamentals = &fundamentals[..];
+    let nf = fundamentals.len();
+    let per_mode = if opts.second_overtones { 2 } else { 1 };
+    let all = nf * per_mode + nf * nf.saturating_sub(1) / 2;
+    let too_many = |levels: usize| SpectraError::TooManyLevels {
+        fundamentals: nf,
+        levels,
+        limit: MAX_LEVELS,
+    };
+    let filtered = opts.max_cm.is_some() && fundamentals.iter().all(|f| f.position_cm.is_some());
+    if all > MAX_LEVELS && !filtered {
+        return Err(too_many(all));
+    }
+    // The symmetry of a level depends only on the irreps: each reduced once (a cluster's
+    // thousand fundamentals repeat a dozen irreps).
+    let nr = real_irreps(g).len();
+    let mut products: Vec<Option<Symmetry>> = vec![None; nr * nr];
+    let mut powers: Vec<Option<Symmetry>> = vec![None; nr * 4];
     let mut levels = Vec::new();
     let pos = |k: usize| fundamentals[k].position_cm;
-    let mut push = |kind, label: String, of: Vec<usize>, symmetry: Symmetry| {
+    let kept = |of: &[usize]| -> Option<Option<f64>> {
         let harmonic_cm = of.iter().map(|&k| pos(k)).sum::<Option<f64>>();
-        if let (Some(max), Some(h)) = (opts.max_cm, harmonic_cm) {
-            if h > max {
-                return;
-            }
+        match (opts.max_cm, harmonic_cm) {
+            (Some(max), Some(h)) if h > max => None,
+            _ => Some(harmonic_cm),
+        }
+    };
+    let mut push = |kind, label: String, of: Vec<usize>, harmonic_cm, symmetry: &Symmetry| {
+        if levels.len() == MAX_LEVELS {
+            return Err(too_many(all));
         }
         levels.push(CombinationBand {
             kind,
@@ -226,29 +253,37 @@ pub fn predict_combinations(
             ir: symmetry.ir(),
             raman: symmetry.raman(),
             polarized: symmetry.polarized(),
-            symmetry,
+            symmetry: symmetry.clone(),
         });
+        Ok(())
     };
     for (k, (irrep, name)) in resolved.iter().enumerate() {
         for n in 2..=if opts.second_overtones { 3 } else { 2 } {
-            let sym = overtone(g, *irrep, n)?;
-            push(
-                LevelKind::Overtone,
-                format!("{n}{name}"),
-                vec![k; n as usize],
-                sym,
-            );
+            let of = vec![k; n as usize];
+            let Some(h) = kept(&of) else { continue };
+            let slot = &mut powers[irrep * 4 + n as usize];
+            if slot.is_none() {
+                *slot = Some(overtone(g, *irrep, n)?);
+            }
+            let sym = slot.as_ref().expect("just reduced");
+            push(LevelKind::Overtone, format!("{n}{name}"), of, h, sym)?;
         }
     }
     for (a, (ia, na)) in resolved.iter().enumerate() {
         for (b, (ib, nb)) in resolved.iter().enumerate().skip(a + 1) {
-            let sym = combination(g, *ia, *ib)?;
+            let Some(h) = kept(&[a, b]) else { continue };
+            let slot = &mut products[ia.min(ib) * nr + ia.max(ib)];
+            if slot.is_none() {
+                *slot = Some(combination(g, *ia, *ib)?);
+            }
+            let sym = slot.as_ref().expect("just reduced");
             push(
                 LevelKind::Combination,
                 format!("{na} + {nb}"),
                 vec![a, b],
+                h,
                 sym,
-            );
+            )?;
         }
     }
     levels.sort_by(|x, y| match (x.harmonic_cm, y.harmonic_cm) {

@@ -61,6 +61,16 @@ pub enum SpectraError {
         position: String,
         message: String,
     },
+    #[error(
+        "{fundamentals} fundamentals give {levels} overtone and combination levels, more than \
+         the {limit} listed at once: give the fundamentals' positions and an upper wavenumber \
+         limit to keep the low-lying levels, or list fewer fundamentals"
+    )]
+    TooManyLevels {
+        fundamentals: usize,
+        levels: usize,
+        limit: usize,
+    },
     #[error("{group}: internal inconsistency: {message}")]
     Internal { group: String, message: String },
 }
