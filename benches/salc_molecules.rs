@@ -66,7 +66,10 @@ fn all_bases(text: &str) -> usize {
     if let Ok(set) = salc::symmetry_coordinates(&s) {
         n += set.salcs.len();
     } else {
-        n += salc::salcs(&basis::cartesian(&s)).unwrap().salcs.len();
+        n += salc::salcs(&basis::cartesian(&s).unwrap())
+            .unwrap()
+            .salcs
+            .len();
     }
     if !s.bonds.is_empty() {
         let st = basis::stretches(&s, &s.bonds).unwrap();

@@ -134,7 +134,7 @@ fn main() {
                     errors.push(format!("{name} {site} σ: {e}"));
                 }
             }
-            let (r, t, c) = time(|| salc::salcs(&basis::cartesian(&s)));
+            let (r, t, c) = time(|| salc::salcs(&basis::cartesian(&s).unwrap()));
             match r {
                 Ok(set) => push("xyz", set.salcs.len(), (t, c)),
                 Err(e) => {

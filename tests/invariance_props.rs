@@ -68,7 +68,7 @@ proptest! {
             return Ok(());
         };
         let b = match which {
-            0 => basis::cartesian(&s),
+            0 => basis::cartesian(&s).unwrap(),
             1 => basis::stretches(&s, &s.bonds).unwrap(),
             _ => basis::sigma(&s, 0, &basis::default_ligands(&s, 0)).unwrap(),
         };

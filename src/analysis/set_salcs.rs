@@ -264,7 +264,7 @@ fn basis_of(st: &Structure, set: &MemberSet) -> Result<Basis, String> {
         SetKind::Cartesian | SetKind::Axial => {
             let atoms: Vec<usize> = at.iter().map(|a| a[0]).collect();
             closed_atoms(st, &atoms, set)?;
-            let mut b = basis::cartesian(st).restricted(&atoms);
+            let mut b = basis::cartesian(st).map_err(closed)?.restricted(&atoms);
             if set.kind == SetKind::Axial {
                 let det = |o: usize| -> Cyclo { mat_det(&st.group.ops[o].matrix) };
                 b.images = std::sync::Arc::new(b.images.scaled_per_op(det));

@@ -6,7 +6,7 @@
 //! vibrations and are reduced in C2v/D2h, then correlated back to C∞v/D∞h.
 
 use super::action::{class_representatives, Basis, BasisKind, Member};
-use super::images::ImagesBuilder;
+use super::images::{check_size, ImagesBuilder};
 use super::structure::Structure;
 use super::BasisError;
 use crate::exact::Cyclo;
@@ -16,8 +16,10 @@ use std::sync::Arc;
 
 const AXES: [&str; 3] = ["x", "y", "z"];
 
-/// The 3N Cartesian displacements: members `x1 y1 z1 x2 …` in atom order.
-pub fn cartesian(s: &Structure) -> Basis {
+/// The 3N Cartesian displacements: members `x1 y1 z1 x2 …` in atom order (refused beyond
+/// [`super::MAX_IMAGES`] images).
+pub fn cartesian(s: &Structure) -> Result<Basis, BasisError> {
+    check_size(BasisKind::Cartesian, 3 * s.len(), s.group.order())?;
     let mut members = Vec::with_capacity(3 * s.len());
     for a in 0..s.len() {
         for ax in AXES {
@@ -52,7 +54,7 @@ pub fn cartesian(s: &Structure) -> Basis {
         b.end_op();
     }
     let images = Arc::new(b.finish());
-    Basis {
+    Ok(Basis {
         kind: BasisKind::Cartesian,
         group: s.group.clone(),
         members,
@@ -60,7 +62,21 @@ pub fn cartesian(s: &Structure) -> Basis {
         site_perm: s.perm.clone(),
         images,
         notes: Vec::new(),
-    }
+    })
+}
+
+/// Γ3N without building the basis: χ(R) = (atoms R leaves in place) × tr R (Cotton, 3rd ed.,
+/// §10.2).
+pub fn cartesian_character(s: &Structure) -> Character {
+    Character(
+        class_representatives(&s.group)
+            .iter()
+            .map(|&o| {
+                let unmoved = (0..s.len()).filter(|&a| s.perm[o][a] == a).count();
+                &mat_trace(&s.group.ops[o].matrix) * &Cyclo::from_int(unmoved as i64)
+            })
+            .collect(),
+    )
 }
 
 fn triple(s: &Structure, kind: BasisKind, prefix: &str, axial: bool) -> Basis {
@@ -139,7 +155,7 @@ pub fn vibrations(s: &Structure) -> Result<Vibrations, BasisError> {
             group: s.group.name().to_string(),
         });
     }
-    let g3n = cartesian(s).character();
+    let g3n = cartesian_character(s);
     let gt = translations(s).character();
     let gr = rotations(s).character();
     let gv = minus(&minus(&g3n, &gt), &gr);
@@ -168,7 +184,7 @@ pub fn vibrations_linear(s: &Structure, linear: &PointGroup) -> Result<Vibration
     if !on_z {
         return Err(BasisError::NotOnAxis);
     }
-    let g3n = cartesian(s).character();
+    let g3n = cartesian_character(s);
     let gt = translations(s).character();
     // Rz is not a rotation of a linear molecule: χ_rot = det·(tr R − R_zz).
     let gr = Character(

@@ -4,8 +4,35 @@
 //! matrix entries (C60: 64,800 terms over a dozen numbers), a permutation basis (bonds,
 //! angles, σ orbitals) only 1. Each number is stored once instead of once per term.
 
-use super::action::Column;
+use super::action::{BasisKind, Column};
+use super::BasisError;
 use crate::exact::{Cyclo, CycloKey, QuickMap};
+
+/// Most images (members × operations) a basis is built with. Beyond this the basis alone
+/// takes hundreds of MB (C60's Cartesian basis has 21,600; a 1,415-atom icosahedron's 509,400;
+/// a 97,556-atom fcc cube's bonds 28.8 million), and its exact SALCs could not finish within
+/// the ceilings anyway (`salc::EXACT_CEILING`, `salc::MEMORY_CEILING_MB`).
+pub const MAX_IMAGES: usize = 8_000_000;
+
+/// Most members a basis is built with (each has a name and its atoms: about 100 bytes).
+pub const MAX_MEMBERS: usize = 500_000;
+
+/// Refuses a basis of `members` members under `ops` operations beyond [`MAX_IMAGES`] images
+/// or [`MAX_MEMBERS`] members, before anything is built.
+pub fn check_size(kind: BasisKind, members: usize, ops: usize) -> Result<(), BasisError> {
+    let columns = members.saturating_mul(ops);
+    if columns > MAX_IMAGES || members > MAX_MEMBERS {
+        return Err(BasisError::TooLarge {
+            basis: kind.name().to_string(),
+            members,
+            ops,
+            columns,
+            max_members: MAX_MEMBERS,
+            max_images: MAX_IMAGES,
+        });
+    }
+    Ok(())
+}
 
 /// Distinct numbers looked up without hashing (an operation's matrix uses at most 9).
 const RECENT: usize = 12;

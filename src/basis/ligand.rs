@@ -8,7 +8,7 @@
 //! about the bond, and the frame is built from its exact rotation axis and mirror normal.
 
 use super::action::{Basis, BasisKind, Member};
-use super::images::{permutation_images, ImagesBuilder};
+use super::images::{check_size, permutation_images, ImagesBuilder};
 use super::structure::{orbits, Structure};
 use super::BasisError;
 use crate::exact::{sqrt, Cyclo};
@@ -80,6 +80,7 @@ fn ligand_perm(s: &Structure, ligands: &[usize]) -> Result<Vec<Vec<usize>>, Basi
 /// σ vectors of `ligands` pointing at `centre` (the atom at the origin).
 pub fn sigma(s: &Structure, centre: usize, ligands: &[usize]) -> Result<Basis, BasisError> {
     check_centre(s, centre)?;
+    check_size(BasisKind::Sigma, ligands.len(), s.group.order())?;
     let site_perm = ligand_perm(s, ligands)?;
     let members = ligands
         .iter()
@@ -304,6 +305,7 @@ fn site_frame(s: &Structure, l0: usize, stab: &[usize]) -> Result<SiteFrame, Bas
 /// π pairs on `ligands` (two vectors ⟂ each centre–ligand bond): members `π1a π1b π2a …`.
 pub fn pi(s: &Structure, centre: usize, ligands: &[usize]) -> Result<Basis, BasisError> {
     check_centre(s, centre)?;
+    check_size(BasisKind::Pi, 2 * ligands.len(), s.group.order())?;
     let g = &s.group;
     let site_perm = ligand_perm(s, ligands)?;
     let n = ligands.len();

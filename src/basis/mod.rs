@@ -19,9 +19,10 @@ mod structure;
 
 pub use action::{class_representatives, Basis, BasisKind, Column, Member};
 pub use cartesian::{
-    cartesian, rotations, translations, vibrations, vibrations_linear, Vibrations,
+    cartesian, cartesian_character, rotations, translations, vibrations, vibrations_linear,
+    Vibrations,
 };
-pub use images::{permutation_images, Images, ImagesBuilder};
+pub use images::{check_size, permutation_images, Images, ImagesBuilder, MAX_IMAGES, MAX_MEMBERS};
 pub use internal::{all_angles, angle_sets, bends, bond_sets, stretches, Angle, SiteSet};
 pub use ligand::{default_ligands, pi, sigma};
 pub use orbitals::{
@@ -73,6 +74,20 @@ pub enum BasisError {
     NotPlanar,
     #[error("angle {angle} is linear: a bend needs a non-straight angle")]
     LinearAngle { angle: String },
+    #[error(
+        "the {basis} basis would have {members} members under {ops} operations ({columns} \
+         images; salcdesk builds at most {max_members} members and {max_images} images): its \
+         exact SALCs could not finish within the time and memory ceilings; take a smaller \
+         model or fewer sites"
+    )]
+    TooLarge {
+        basis: String,
+        members: usize,
+        ops: usize,
+        columns: usize,
+        max_members: usize,
+        max_images: usize,
+    },
     #[error("the {basis} basis is not made of internal coordinates")]
     NotInternal { basis: String },
     #[error("the characters of the {basis} basis do not reduce: the action is inconsistent")]

@@ -4,7 +4,7 @@
 //! the plane onto itself, so R·n = ±n and R carries p_a to ±p_R(a) (Cotton, 3rd ed., §10.4).
 
 use super::action::{Basis, BasisKind, Member};
-use super::images::ImagesBuilder;
+use super::images::{check_size, ImagesBuilder};
 use super::structure::Structure;
 use super::BasisError;
 use crate::exact::Cyclo;
@@ -13,6 +13,7 @@ use std::sync::Arc;
 /// p⊥ orbitals on `atoms` (all must lie in one plane through the origin).
 pub fn p_perp(s: &Structure, atoms: &[usize]) -> Result<Basis, BasisError> {
     let g = &s.group;
+    check_size(BasisKind::PPerp, atoms.len(), g.order())?;
     for &a in atoms {
         if a >= s.len() {
             return Err(BasisError::NoSuchAtom {

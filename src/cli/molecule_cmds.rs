@@ -205,7 +205,7 @@ pub fn salc(a: &SalcArgs, ascii: bool) -> CliResult {
         }
         "cartesian" | "symmetry" => {
             let set = salc::symmetry_coordinates(&s).map_err(input)?;
-            let sites = basis::cartesian(&s).sites;
+            let sites: Vec<String> = (0..s.len()).map(|a| s.label(a)).collect();
             let per_member = set.members.iter().map(|m| sites[m.site].clone()).collect();
             (set, per_member, false)
         }
@@ -293,7 +293,7 @@ fn rebuild_for_worked(s: &Structure, kind: &str) -> Result<Basis, CliError> {
     match kind {
         "stretch" | "stretches" => basis::stretches(s, &s.bonds).map_err(input),
         "bend" | "bends" => basis::bends(s, &basis::all_angles(s)).map_err(input),
-        "cartesian" | "symmetry" => Ok(basis::cartesian(s)),
+        "cartesian" | "symmetry" => basis::cartesian(s).map_err(input),
         _ => {
             let c = s.atom_at_origin().ok_or_else(|| input("no central atom"))?;
             let l = basis::default_ligands(s, c);

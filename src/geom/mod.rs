@@ -10,7 +10,7 @@ pub mod bonds;
 pub mod elements;
 mod error;
 pub mod formula;
-mod grid;
+pub(crate) mod grid;
 mod linalg;
 pub mod molecule;
 pub mod orient;

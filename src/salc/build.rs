@@ -328,6 +328,8 @@ pub fn salcs_on(
             }
             if quick.is_none() {
                 // 128 bits overflowed: the same steps on big integers over the same field
+                // (unless the ceiling has passed meanwhile)
+                clock.check(&ir.label)?;
                 let fb = FastBasis::<BigInt>::new(&b.images, spec);
                 let fi = fb
                     .as_ref()
@@ -455,38 +457,43 @@ fn partner_ones(job: &Job) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
     };
     let complex_type = ir.pair.is_some();
     let recipe = PartnerRecipe::of(&b.group, ir);
-    let mut offer = |v: Vec<Cyclo>, role: Role, found: &mut Vec<(Vec<Cyclo>, Role)>| {
-        let mut v = v;
-        for (c, nc) in &ortho {
-            // nc = 1/(c·c)
-            let f = &dot(&v, c) * nc;
-            if !f.is_zero() {
-                for (vi, ci) in v.iter_mut().zip(c) {
-                    if !ci.is_zero() {
-                        *vi -= &(&f * ci);
+    let mut offer =
+        |v: Vec<Cyclo>, role: Role, found: &mut Vec<(Vec<Cyclo>, Role)>| -> Result<(), SalcError> {
+            let mut v = v;
+            for (i, (c, nc)) in ortho.iter().enumerate() {
+                if i % 16 == 15 || v.len() > LONG {
+                    clock.check(&ir.label)?;
+                }
+                // nc = 1/(c·c)
+                let f = &dot(&v, c) * nc;
+                if !f.is_zero() {
+                    for (vi, ci) in v.iter_mut().zip(c) {
+                        if !ci.is_zero() {
+                            *vi -= &(&f * ci);
+                        }
                     }
                 }
             }
-        }
-        if v.iter().all(Cyclo::is_zero) {
-            return;
-        }
-        let v = tidy(v);
-        if complex_type {
-            for p in recipe.partners(b, v.clone()).into_iter().skip(1) {
-                let n = inv_len2(&p);
-                ortho.push((p, n));
+            if v.iter().all(Cyclo::is_zero) {
+                return Ok(());
             }
-        }
-        ortho.push((v.clone(), inv_len2(&v)));
-        found.push((v, role));
-    };
+            let v = tidy(v);
+            if complex_type {
+                for p in recipe.partners(b, v.clone()).into_iter().skip(1) {
+                    let n = inv_len2(&p);
+                    ortho.push((p, n));
+                }
+            }
+            ortho.push((v.clone(), inv_len2(&v)));
+            found.push((v, role));
+            Ok(())
+        };
     for preset in job.presets {
         if !job.wants(preset, found.iter().map(|f| f.1)) {
             continue;
         }
         let v = transfer(b, ir, inv, 0, 0, &preset.vector);
-        offer(v, preset.role, &mut found);
+        offer(v, preset.role, &mut found)?;
     }
     'outer: for &site in reps {
         for m in b.members_of(site) {
@@ -495,7 +502,7 @@ fn partner_ones(job: &Job) -> Result<Vec<(Vec<Cyclo>, Role)>, SalcError> {
                     break 'outer;
                 }
                 clock.check(&ir.label)?;
-                offer(v, Role::Plain, &mut found);
+                offer(v, Role::Plain, &mut found)?;
             }
         }
     }
@@ -514,6 +521,9 @@ type Tuples = Vec<(Shown, Role)>;
 
 /// One SALC's partners in their shown form, each with its length².
 type Shown = Vec<(Vec<Cyclo>, Cyclo)>;
+
+/// Vector length (integers) from which the ceiling is looked at before every step.
+const LONG: usize = 4096;
 
 /// Partner tuples of one irrep on the integer-form engine: the same steps as [`partner_ones`]
 /// and [`PartnerRecipe::partners`], so the same vectors up to positive rational factors (which
@@ -536,23 +546,12 @@ fn fast_tuples<I: KInt>(
         let (nn, dd) = v.dot_in(v, f)?;
         f.inverse(&nn, &dd)
     };
-    // Some(()) = done (kept or rejected); None = overflow
-    let offer = |mut v: KVec<I>,
-                 role: Role,
-                 found: &mut Vec<(KVec<I>, Role)>,
-                 ortho: &mut Vec<(KVec<I>, Scalar<I>)>|
+    // a new vector (and, for a complex pair, its partners) joins those to be orthogonal to
+    let keep = |v: KVec<I>,
+                role: Role,
+                found: &mut Vec<(KVec<I>, Role)>,
+                ortho: &mut Vec<(KVec<I>, Scalar<I>)>|
      -> Option<()> {
-        for (c, (nn, nd)) in ortho.iter() {
-            let (dn, dd) = v.dot_in(c, f)?;
-            if dn.iter().all(I::is_zero) {
-                continue;
-            }
-            let (sn, sd) = f.mul(&dn, &dd, nn, nd)?;
-            v.sub_scaled_in(&sn, &sd, c, f)?;
-        }
-        if v.is_zero() {
-            return Some(());
-        }
         if complex_type {
             for p in super::fast::partners(fb, &recipe.ops, fi, &v)?
                 .into_iter()
@@ -567,6 +566,36 @@ fn fast_tuples<I: KInt>(
         found.push((v, role));
         Some(())
     };
+    // v − (v·c)/(c·c)·c; None = overflow
+    let project_out = |v: &mut KVec<I>, c: &KVec<I>, nn: &[I], nd: &I| -> Option<()> {
+        let (dn, dd) = v.dot_in(c, f)?;
+        if dn.iter().all(I::is_zero) {
+            return Some(());
+        }
+        let (sn, sd) = f.mul(&dn, &dd, nn, nd)?;
+        v.sub_scaled_in(&sn, &sd, c, f)
+    };
+    // Ok(Some(())) = done (kept or rejected); Ok(None) = overflow; Err = a ceiling (looked at
+    // every 16 vectors, every vector for long ones: one offer can take seconds)
+    let offer = |mut v: KVec<I>,
+                 role: Role,
+                 found: &mut Vec<(KVec<I>, Role)>,
+                 ortho: &mut Vec<(KVec<I>, Scalar<I>)>|
+     -> Result<Option<()>, SalcError> {
+        for (i, (c, (nn, nd))) in ortho.iter().enumerate() {
+            if i % 16 == 15 || v.num.len() > LONG {
+                clock.check(&ir.label)?;
+            }
+            if project_out(&mut v, c, nn, nd).is_none() {
+                return Ok(None);
+            }
+        }
+        if v.is_zero() {
+            return Ok(Some(()));
+        }
+        Ok(keep(v, role, found, ortho))
+    };
+
     for (preset, pv) in job.presets.iter().zip(presets) {
         if !job.wants(preset, found.iter().map(|f| f.1)) {
             continue;
@@ -574,7 +603,7 @@ fn fast_tuples<I: KInt>(
         let Some(v) = fi.transfer_11(fb, inv, pv) else {
             return Ok(None);
         };
-        if offer(v, preset.role, &mut found, &mut ortho).is_none() {
+        if offer(v, preset.role, &mut found, &mut ortho)?.is_none() {
             return Ok(None);
         }
     }
@@ -588,7 +617,7 @@ fn fast_tuples<I: KInt>(
                     break 'outer;
                 }
                 clock.check(&ir.label)?;
-                if offer(v, Role::Plain, &mut found, &mut ortho).is_none() {
+                if offer(v, Role::Plain, &mut found, &mut ortho)?.is_none() {
                     return Ok(None);
                 }
             }

@@ -128,7 +128,7 @@ fn irreps_of(b: &Basis, irreps: &[super::irreps::RealIrrep]) -> Result<Vec<usize
 /// Symmetry coordinates: SALCs of the Cartesian displacements, translations and rotations first
 /// in their irreps (roles `Translation`, `Rotation`), 3N − 6 vibrational ones (`Plain`).
 pub fn symmetry_coordinates(s: &Structure) -> Result<SalcSet, SalcError> {
-    let cart = basis::cartesian(s);
+    let cart = basis::cartesian(s)?;
     let irreps = real_irreps(&s.group)?;
     let trans_irreps = irreps_of(&basis::translations(s), &irreps)?;
     let rot_irreps = irreps_of(&basis::rotations(s), &irreps)?;

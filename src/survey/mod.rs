@@ -11,4 +11,4 @@ mod internal;
 mod run;
 
 pub use internal::{angle_sets, bond_sets, AngleSet, BondSet};
-pub use run::{survey, SetGamma, Survey, SurveyError, SurveyOptions, MAX_ANGLES};
+pub use run::{survey, SetGamma, Survey, SurveyError, SurveyOptions, MAX_ANGLES, MAX_BOND_SETS};

@@ -31,6 +31,10 @@ pub struct SurveyOptions {
 /// solids have far more angles than a chemist reads one by one.
 pub const MAX_ANGLES: usize = 20_000;
 
+/// Above this many bond sets the sets are not listed (a note says so; Γ of all stretches is
+/// still given): a 97,556-atom cube has 24,000 sets, and listing them took 2.7 GB in C1.
+pub const MAX_BOND_SETS: usize = 5_000;
+
 impl Default for SurveyOptions {
     fn default() -> Self {
         SurveyOptions {
@@ -304,7 +308,30 @@ pub fn survey(mol: &Molecule, opts: &SurveyOptions) -> Result<Survey, SurveyErro
     let symbol = |i: usize| oriented.molecule.atoms[i].symbol().to_string();
     let class_perms: Vec<&Vec<usize>> = class_ops.iter().map(|&k| &permutations[k]).collect();
     let mut bond_out = Vec::new();
-    for set in bond_sets(&bonds, &gen_only, symbol) {
+    let all_bond_sets = bond_sets(&bonds, &gen_only, symbol);
+    // Γ of all stretches at once (the sets' Γ add up to it)
+    let stretches_all = {
+        let pairs: Vec<(usize, usize)> = bonds.iter().map(|&(a, b)| (a.min(b), a.max(b))).collect();
+        let chi = Character(
+            class_perms
+                .iter()
+                .map(|p| Cyclo::from_int(unmoved_bonds(&pairs, p)))
+                .collect(),
+        );
+        reduce_in(&g, &w, chi)?
+    };
+    let listed_bond_sets = if all_bond_sets.len() > MAX_BOND_SETS {
+        notes.push(format!(
+            "{} bond sets ({} bonds): sets not listed (more than {MAX_BOND_SETS}); Γ of all \
+             stretches given",
+            all_bond_sets.len(),
+            bonds.len()
+        ));
+        Vec::new()
+    } else {
+        all_bond_sets
+    };
+    for set in listed_bond_sets {
         let unmoved: Vec<i64> = class_perms
             .iter()
             .map(|p| unmoved_bonds(&set.bonds, p))
@@ -349,7 +376,7 @@ pub fn survey(mol: &Molecule, opts: &SurveyOptions) -> Result<Survey, SurveyErro
     }
     let n_irreps = g.table.irreps.len();
     let total = |sets: &dyn Fn(usize) -> u64| (0..n_irreps).map(sets).collect::<Vec<u64>>();
-    let stretches = total(&|i| bond_out.iter().map(|s| s.gamma[i]).sum());
+    let stretches = stretches_all;
     let bends = total(&|i| angle_out.iter().map(|s| s.gamma[i]).sum());
     let vib = &vibrations.vibrations;
     let bend_remainder: Vec<i64> = (0..n_irreps)

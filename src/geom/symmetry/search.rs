@@ -204,10 +204,17 @@ fn candidates(ctx: &Ctx, classes: &[Class]) -> Candidates {
                     .collect()
             };
             let (w2, w4) = (near(2.0), near(4.0));
-            for &b in m {
-                let pb = p[b];
-                for r in [pa, pa2] {
-                    let scale = r.norm() + pb.norm();
+            // C2 axes and mirrors carrying a (or a2) onto b: b at its distance from the centre
+            // (within 4·s; a long chain of nearly equal radii, as in a large random cloud, is
+            // one class but far from one orbit)
+            for r in [pa, pa2] {
+                let rr = r.norm();
+                for &b in m {
+                    let pb = p[b];
+                    if (pb.norm() - rr).abs() > 4.0 * s {
+                        continue;
+                    }
+                    let scale = rr + pb.norm();
                     push(&mut axes, r + pb, (r + pb).norm() / scale);
                     push(&mut mirrors, r - pb, (r - pb).norm() / scale);
                 }
@@ -381,11 +388,20 @@ impl Catalogue {
 /// passes, with its deviation, on the direction refined for the highest one. Powers of an
 /// exact rotation are exact and not tested again.
 fn line_orders(ctx: &Ctx, u: &V3, small: &[usize]) -> Option<Line> {
-    let try_order = |dir: &V3, n: usize| -> Option<(V3, f64)> {
-        let off = small
+    // atoms of the small class off the line: a Cn permutes them in cycles of n (counted once
+    // per direction, not once per order)
+    let off_line = |dir: &V3| {
+        small
             .iter()
             .filter(|&&i| (ctx.pos[i] - dir * dir.dot(&ctx.pos[i])).norm() > ctx.s)
-            .count();
+            .count()
+    };
+    let mut counted: (V3, usize) = (*u, off_line(u));
+    let mut try_order = |dir: &V3, n: usize| -> Option<(V3, f64)> {
+        if counted.0 != *dir {
+            counted = (*dir, off_line(dir));
+        }
+        let off = counted.1;
         if off > 0 && off % n != 0 {
             return None;
         }
