@@ -86,17 +86,23 @@ impl<I: KInt> FastBasis<I> {
             if x.iter().all(I::is_zero) {
                 continue;
             }
-            for &(k, i) in self.images.raw(op, m) {
-                let k = k as usize;
-                self.f.mul_acc_by(
-                    &mut out.num[k * phi..(k + 1) * phi],
-                    &self.mats[i as usize],
-                    x,
-                )?;
-            }
+            self.add_image(&mut out.num, op, m, x)?;
         }
         out.den = self.table.den.mul(&v.den)?;
         Some(out)
+    }
+
+    /// acc += x·R_op·e_m for a field number x (numerators; the table's denominator is the
+    /// caller's to apply).
+    #[inline]
+    fn add_image(&self, acc: &mut [I], op: usize, m: usize, x: &[I]) -> Option<()> {
+        let phi = self.f.phi();
+        for &(k, i) in self.images.raw(op, m) {
+            let k = k as usize;
+            self.f
+                .mul_acc_by(&mut acc[k * phi..(k + 1) * phi], &self.mats[i as usize], x)?;
+        }
+        Some(())
     }
 }
 
@@ -188,14 +194,7 @@ impl<I: KInt> FastIrrep<I> {
                 if f.iter().all(I::is_zero) {
                     continue;
                 }
-                for &(t, i) in fb.images.raw(o, m) {
-                    let t = t as usize;
-                    fb.f.mul_acc_by(
-                        &mut acc.num[t * phi..(t + 1) * phi],
-                        &fb.mats[i as usize],
-                        f,
-                    )?;
-                }
+                fb.add_image(&mut acc.num, o, m, f)?;
             }
         }
         let den = self.table.den.mul(&fb.table.den)?;
@@ -223,14 +222,7 @@ impl<I: KInt> FastIrrep<I> {
                 }
                 fx.iter_mut().for_each(|a| *a = I::zero());
                 fb.f.mul_acc(&mut fx, f, x)?;
-                for &(k, i) in fb.images.raw(o, m) {
-                    let k = k as usize;
-                    fb.f.mul_acc_by(
-                        &mut out.num[k * phi..(k + 1) * phi],
-                        &fb.mats[i as usize],
-                        &fx,
-                    )?;
-                }
+                fb.add_image(&mut out.num, o, m, &fx)?;
             }
         }
         out.den = self.table.den.mul(&fb.table.den)?.mul(&v.den)?;
