@@ -522,7 +522,8 @@ type Tuples = Vec<(Shown, Role)>;
 /// One SALC's partners in their shown form, each with its length².
 type Shown = Vec<(Vec<Cyclo>, Cyclo)>;
 
-/// Vector length (integers) from which the ceiling is looked at before every step.
+/// Vector length (entries; integers in the fast engine) from which the ceiling is looked at
+/// before every Gram–Schmidt step.
 const LONG: usize = 4096;
 
 /// Partner tuples of one irrep on the integer-form engine: the same steps as [`partner_ones`]
