@@ -261,22 +261,18 @@ pub fn predict_combinations(
         for n in 2..=if opts.second_overtones { 3 } else { 2 } {
             let of = vec![k; n as usize];
             let Some(h) = kept(&of) else { continue };
-            let slot = &mut powers[irrep * 4 + n as usize];
-            if slot.is_none() {
-                *slot = Some(overtone(g, *irrep, n)?);
-            }
-            let sym = slot.as_ref().expect("just reduced");
+            let sym = reduced_once(&mut powers[irrep * 4 + n as usize], || {
+                overtone(g, *irrep, n)
+            })?;
             push(LevelKind::Overtone, format!("{n}{name}"), of, h, sym)?;
         }
     }
     for (a, (ia, na)) in resolved.iter().enumerate() {
         for (b, (ib, nb)) in resolved.iter().enumerate().skip(a + 1) {
             let Some(h) = kept(&[a, b]) else { continue };
-            let slot = &mut products[ia.min(ib) * nr + ia.max(ib)];
-            if slot.is_none() {
-                *slot = Some(combination(g, *ia, *ib)?);
-            }
-            let sym = slot.as_ref().expect("just reduced");
+            let sym = reduced_once(&mut products[ia.min(ib) * nr + ia.max(ib)], || {
+                combination(g, *ia, *ib)
+            })?;
             push(
                 LevelKind::Combination,
                 format!("{na} + {nb}"),
@@ -297,6 +293,17 @@ pub fn predict_combinations(
         note: ANHARMONIC_NOTE.to_string(),
         numbering: NUMBERING_NOTE.to_string(),
     })
+}
+
+/// The symmetry held in `slot`, reduced by `make` the first time.
+fn reduced_once(
+    slot: &mut Option<Symmetry>,
+    make: impl FnOnce() -> Result<Symmetry, SpectraError>,
+) -> Result<&Symmetry, SpectraError> {
+    if slot.is_none() {
+        *slot = Some(make()?);
+    }
+    Ok(slot.as_ref().expect("just reduced"))
 }
 
 /// An error in a list of fundamentals, with its line and field.
